@@ -1,0 +1,120 @@
+// Python face of the lattice-free engine: the generic height model, Thurston's
+// extremes, exact samples by coupling from the past, and forward chains.
+#include <memory>
+
+#include "frostline/bindings/support.hpp"
+#include "frostline/height_model.hpp"
+#include "frostline/sweeps.hpp"
+#include "frostline/thurston.hpp"
+
+namespace frostline::bindings {
+
+namespace {
+
+std::shared_ptr<height_model> make_model(std::int32_t n_sites, const int_array& boundary_values,
+                                         const int_array& constraints, const int_array& residues,
+                                         std::int32_t step, const int_array& colour_classes) {
+    if (constraints.ndim() != 2 || constraints.shape(1) != 3)
+        throw invalid_model("constraints must be an integer array of shape (E, 3) with rows (from, to, bound)");
+    std::vector<constraint> list(static_cast<std::size_t>(constraints.shape(0)));
+    auto c = constraints.unchecked<2>();
+    for (py::ssize_t e = 0; e < constraints.shape(0); ++e) list[e] = constraint{c(e, 0), c(e, 1), c(e, 2)};
+    return std::make_shared<height_model>(n_sites, to_vector(boundary_values), std::move(list),
+                                          to_vector(residues), step, to_vector(colour_classes));
+}
+
+std::pair<std::int64_t, std::int64_t> height_range(const int_array& least, const int_array& greatest) {
+    if (least.size() == 0) return {0, 0};
+    const auto* lo = least.data();
+    const auto* hi = greatest.data();
+    return {*std::min_element(lo, lo + least.size()), *std::max_element(hi, hi + greatest.size())};
+}
+
+py::tuple sample(std::shared_ptr<height_model> model, const int_array& least, const int_array& greatest,
+                 double q, std::uint64_t word0, std::uint64_t word1, bool check_order,
+                 std::int64_t max_start_time, py::object progress) {
+    if (least.size() != model->n_nodes() || greatest.size() != model->n_nodes())
+        throw invalid_model("least and greatest states need one height per node");
+    const auto [min_h, max_h] = height_range(least, greatest);
+    auto top = to_vector(greatest), bottom = to_vector(least);
+    const auto control = make_control(progress, max_start_time, check_order);
+    run_report report;
+    auto result = with_rule(q, model->step(), min_h, max_h, [&](auto rule) {
+        generic_sweeper<decltype(rule)> sweeper(*model, rule, make_key(word0, word1), stream::coupling_from_the_past);
+        // Why release the GIL: one exact sample can take hours; other Python
+        // threads (and other samples) run meanwhile. The hook re-takes it.
+        py::gil_scoped_release free;
+        return monotone_cftp(sweeper, top, bottom, control, report);
+    });
+    return py::make_tuple(to_array(result), report_dict(report));
+}
+
+std::shared_ptr<forward_chain> make_chain(std::shared_ptr<height_model> model, const int_array& start,
+                                          std::int64_t min_height, std::int64_t max_height, double q,
+                                          std::uint64_t word0, std::uint64_t word1, std::int64_t time) {
+    if (start.size() != model->n_nodes()) throw invalid_model("the start state needs one height per node");
+    return with_rule(q, model->step(), min_height, max_height, [&](auto rule) {
+        generic_sweeper<decltype(rule)> sweeper(*model, rule, make_key(word0, word1), stream::forward_chain);
+        // The lambda keeps the model alive as long as the chain.
+        auto sweep = [model, sweeper](std::int32_t* h, std::int64_t t) { sweeper.sweep(h, t); };
+        return std::make_shared<forward_chain>(sweep, model->n_sites(), to_vector(start), time);
+    });
+}
+
+py::array_t<std::int32_t> heat_bath_draws(std::int32_t lo, std::int32_t hi, std::int32_t step, double q,
+                                          std::int64_t min_height, std::int64_t max_height,
+                                          const py::array_t<std::uint64_t, py::array::c_style | py::array::forcecast>& bits) {
+    if (lo > hi) throw invalid_model("lo must not exceed hi");
+    py::array_t<std::int32_t> out(bits.size());
+    with_rule(q, step, min_height, max_height, [&](auto rule) {
+        for (py::ssize_t i = 0; i < bits.size(); ++i) out.mutable_data()[i] = rule.draw(lo, hi, bits.data()[i]);
+        return 0;
+    });
+    return out;
+}
+
+}  // namespace
+
+void register_engine(py::module_& parent) {
+    auto m = parent.def_submodule("engine", "The lattice-free engine: generic height model, Thurston, CFTP, chains.");
+
+    py::class_<height_model, std::shared_ptr<height_model>>(m, "HeightModel")
+        .def(py::init(&make_model), py::arg("n_sites"), py::arg("boundary_values"), py::arg("constraints"),
+             py::arg("residues"), py::arg("step"), py::arg("colour_classes"))
+        .def_property_readonly("n_sites", &height_model::n_sites)
+        .def_property_readonly("n_nodes", &height_model::n_nodes)
+        .def_property_readonly("step", &height_model::step)
+        .def_property_readonly("n_colour_classes", &height_model::n_colour_classes);
+
+    m.def("extremes", [](const height_model& model) {
+        extremal_heights e;
+        {
+            py::gil_scoped_release free;  // shortest paths on large regions take a while
+            e = thurston_extremes(model);
+        }
+        return py::make_tuple(to_array(e.least), to_array(e.greatest));
+    }, py::arg("model"));
+
+    m.def("sample", &sample, py::arg("model"), py::arg("least"), py::arg("greatest"), py::arg("q"),
+          py::arg("key0"), py::arg("key1"), py::arg("check_order") = false,
+          py::arg("max_start_time") = std::int64_t(1) << 40, py::arg("progress") = py::none());
+
+    py::class_<forward_chain, std::shared_ptr<forward_chain>>(m, "ForwardChain")
+        .def("run", [](forward_chain& chain, std::int64_t sweeps, py::object progress) {
+            if (sweeps < 0) throw invalid_model("sweeps must be non-negative");
+            const auto control = make_control(progress, 0, false);
+            py::gil_scoped_release free;  // long runs; the hook re-takes the GIL for Ctrl-C
+            return chain.run(sweeps, control);
+        }, py::arg("sweeps"), py::arg("progress") = py::none())
+        .def_property_readonly("heights", [](const forward_chain& c) { return to_array(c.height()); })
+        .def_property_readonly("time", &forward_chain::time);
+
+    m.def("generic_chain", &make_chain, py::arg("model"), py::arg("start"), py::arg("min_height"),
+          py::arg("max_height"), py::arg("q"), py::arg("key0"), py::arg("key1"), py::arg("time") = 0);
+
+    m.def("heat_bath_draws", &heat_bath_draws, py::arg("lo"), py::arg("hi"), py::arg("step"), py::arg("q"),
+          py::arg("min_height"), py::arg("max_height"), py::arg("bits"),
+          "The shared inverse-CDF routine applied to each word of `bits` (for tests).");
+}
+
+}  // namespace frostline::bindings

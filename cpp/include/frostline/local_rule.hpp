@@ -1,0 +1,116 @@
+// Heat-bath local rules: draw a new height from its conditional law on
+// {lo, lo + step, ..., hi} by inverse CDF with one word of random bits.
+//
+// Every path (generic engine, fast kernels, forward chains) calls these same
+// inline routines, so the same bits give the same height everywhere. Both rules
+// are monotone: for fixed bits the drawn value never decreases when lo or hi
+// increases, which is what monotone coupling from the past needs. The proofs
+// below hold for the floating-point operations as executed, not only for real
+// numbers, because rounding is monotone and no libm call is involved.
+#pragma once
+#include <cstdint>
+#include <limits>
+#include <string>
+#include <vector>
+
+#include "errors.hpp"
+
+namespace frostline {
+
+// Floor division for possibly negative numerators (positive divisor).
+inline std::int64_t floor_div(std::int64_t x, std::int64_t m) {
+    std::int64_t q = x / m;
+    return (x % m != 0 && x < 0) ? q - 1 : q;
+}
+
+// Uniform law on the allowed values. k = floor(u32 * n / 2^32) is exact
+// integer arithmetic; it is non-decreasing in n, and lo + step * k is
+// non-decreasing in lo (raising lo by step lowers n by 1 and k by at most 1).
+struct uniform_rule {
+    std::int32_t step = 1;
+
+    std::int32_t draw(std::int32_t lo, std::int32_t hi, std::uint64_t bits) const {
+        // The step-1 branch avoids an integer division in the hot loop.
+        const std::uint64_t count = static_cast<std::uint64_t>(step == 1 ? hi - lo : (hi - lo) / step) + 1;
+        const std::uint64_t k = ((bits >> 32) * count) >> 32;
+        return lo + static_cast<std::int32_t>(k) * step;
+    }
+};
+
+// Law proportional to q^(h / step): one factor q per step of the height
+// (one cube per step for lozenge models). Uses a table Q[k] = q^k built by
+// repeated multiplication, indexed by the height's position in its residue
+// class, so no pow/log is ever called and results are identical on every
+// IEEE-754 machine (the kernels are compiled with -ffp-contract=off).
+//
+// For q < 1 the drawn value is the least allowed x with Q[i(x) + 1] < target,
+// target = (1 - u) * Q[i(lo)] + u * Q[i(hi) + 1], clamped to hi. Raising hi
+// lowers target (monotone rounding), raising lo lowers target too; either way
+// the least such x can only rise. q > 1 is handled by negating heights, which
+// turns the weight into (1/q)^(h'/step) and keeps the monotonicity.
+class geometric_rule {
+public:
+    geometric_rule() = default;
+
+    // min_height, max_height: bounds on every height the chain can visit.
+    geometric_rule(double q, std::int32_t step, std::int64_t min_height, std::int64_t max_height)
+        : step_(step), negate_(q > 1.0) {
+        if (!(q > 0.0) || q == std::numeric_limits<double>::infinity() || q != q)
+            throw invalid_model("q must be a finite positive number");
+        if (step <= 0) throw invalid_model("step must be positive");
+        if (q == 1.0) throw invalid_model("q = 1 is the uniform rule; use uniform_rule");
+        const double ratio = negate_ ? 1.0 / q : q;
+        origin_ = negate_ ? -max_height : min_height;
+        const std::int64_t span = floor_div(max_height - min_height, step) + 3;
+        powers_.resize(static_cast<std::size_t>(span));
+        double p = 1.0;
+        for (auto& entry : powers_) {
+            entry = p;
+            p *= ratio;
+        }
+        if (powers_.back() < std::numeric_limits<double>::min() && ratio != 1.0)
+            throw invalid_model(
+                "q = " + std::to_string(q) + " is too far from 1 for heights spanning " +
+                std::to_string(span) + " steps: q^steps underflows double precision; "
+                "choose q closer to 1 or a smaller region");
+    }
+
+    std::int32_t draw(std::int32_t lo, std::int32_t hi, std::uint64_t bits) const {
+        if (negate_) return -draw_decreasing(-hi, -lo, bits);
+        return draw_decreasing(lo, hi, bits);
+    }
+
+    std::size_t table_size() const { return powers_.size(); }
+
+private:
+    std::int32_t draw_decreasing(std::int32_t lo, std::int32_t hi, std::uint64_t bits) const {
+        const double u = static_cast<double>(bits >> 11) * 0x1.0p-53;
+        std::int64_t first = floor_div(static_cast<std::int64_t>(lo) - origin_, step_);
+        std::int64_t last = floor_div(static_cast<std::int64_t>(hi) - origin_, step_);
+        const double target = (1.0 - u) * powers_[first] + u * powers_[last + 1];
+        // Binary search for the least index j in [first, last] with
+        // powers_[j + 1] < target (the predicate is monotone in j).
+        std::int64_t low = first, high = last;
+        while (low < high) {
+            const std::int64_t mid = low + (high - low) / 2;
+            if (powers_[mid + 1] < target) high = mid;
+            else low = mid + 1;
+        }
+        return lo + static_cast<std::int32_t>(low - first) * step_;
+    }
+
+    std::int32_t step_ = 1;
+    bool negate_ = false;
+    std::int64_t origin_ = 0;
+    std::vector<double> powers_;
+};
+
+// Round lo up and hi down into the residue class of `residue` modulo step.
+inline void round_into_class(std::int32_t& lo, std::int32_t& hi, std::int32_t residue,
+                             std::int32_t step) {
+    if (step == 1) return;
+    lo += static_cast<std::int32_t>(((residue - lo) % step + step) % step);
+    hi -= static_cast<std::int32_t>(((hi - residue) % step + step) % step);
+}
+
+}  // namespace frostline

@@ -1,0 +1,207 @@
+"""The a x b x c hexagon: plane partitions in a box, uniform or weighted q^volume."""
+from __future__ import annotations
+
+import numbers
+from fractions import Fraction
+from typing import Any, Callable, Dict, Tuple, Union
+
+import numpy as np
+
+from frostline import _core
+from frostline._limits import check_memory
+from frostline.model import HeightModel, ProgressHook
+from frostline.region import Region, Sample, StartLike
+
+from . import counts
+from .drawing import draw_lozenges
+from .tiles import TILE_CLASSES, hexagon_corners, tiles_of_plane_partition
+
+QLike = Union[float, int, Fraction]
+
+KERNELS = ("auto", "box", "generic")
+
+
+def _side(value: Any, name: str) -> int:
+    if isinstance(value, bool) or not isinstance(value, numbers.Integral):
+        raise TypeError(f"side {name} must be an int, got {value!r} of type {type(value).__name__}")
+    if value < 0:
+        raise ValueError(f"side {name} must be non-negative, got {value} (a side of 0 is a valid degenerate hexagon)")
+    if value > 2**30:
+        raise ValueError(f"side {name} = {value} is beyond the 32-bit height range")
+    return int(value)
+
+
+def _weight(q: Any) -> Tuple[float, Fraction]:
+    if isinstance(q, bool) or not isinstance(q, (numbers.Real, Fraction)):
+        raise TypeError(f"q must be a real number, got {q!r} of type {type(q).__name__}")
+    value = float(q)
+    if not np.isfinite(value) or value <= 0.0:
+        raise ValueError(f"q must be a finite positive number, got {q!r}")
+    return value, Fraction(q) if isinstance(q, (Fraction, numbers.Integral)) else Fraction(value)
+
+
+class HexagonRegion(Region):
+    """Lozenge tilings of the a, b, c hexagon = plane partitions in an a x b x c box.
+
+    Heights (``Sample.heights``) are the plane partition: an int32 array of
+    shape (a, b), values in [0, c], non-increasing along both axes; its sum is
+    the volume (number of cubes). Tiles are (x, y, t) rows as in
+    :mod:`frostline.lozenge.tiles`: ab of type 0, bc of type 1, ca of type 2.
+    The weight of a configuration is q ** volume (q = 1: uniform).
+    """
+
+    lattice = "lozenge"
+    tile_classes = TILE_CLASSES
+
+    def __init__(self, a: int, b: int, c: int, q: QLike = 1.0) -> None:
+        self.a, self.b, self.c = _side(a, "a"), _side(b, "b"), _side(c, "c")
+        self.q, self._q_exact = _weight(q)
+        cells = self.a * self.b
+        tiles = self.a * self.b + self.b * self.c + self.c * self.a
+        # two padded chains and the result (int32), tiles (3 x int64), q table
+        estimate = 12 * (self.a + 2) * (self.b + 2) + 24 * tiles + (8 * (self.c + 3) if self.q != 1.0 else 0)
+        check_memory(estimate, f"the {self.a}x{self.b}x{self.c} hexagon ({cells} cells, {tiles} lozenges)")
+        self._model: HeightModel | None = None
+
+    def __repr__(self) -> str:
+        return f"HexagonRegion(a={self.a}, b={self.b}, c={self.c}, q={self.q!r})"
+
+    def describe(self) -> Dict[str, Any]:
+        return {"lattice": self.lattice, "shape": "hexagon", "sides": [self.a, self.b, self.c], "q": self.q}
+
+    @property
+    def corners(self) -> np.ndarray:
+        """The six corners in lattice coordinates (counter-clockwise from (0, 0))."""
+        return hexagon_corners(self.a, self.b, self.c)
+
+    # ----- lowering to the generic engine ---------------------------------
+    def lower(self) -> HeightModel:
+        """The generic height model: one site per cell, step 1, weight q per cube.
+
+        Site r * b + s is cell (r, s); boundary node 0 holds c (above and to the
+        left of the box), node 1 holds 0 (below and to the right). Colour class
+        (r + s) % 2, as in the fast kernel, so both draw identical random bits.
+        """
+        if self._model is None:
+            a, b, c = self.a, self.b, self.c
+            n = a * b
+            top, floor = n, n + 1
+            site = np.arange(n, dtype=np.int64).reshape(a, b)
+            rows = []
+            # h[r+1, s] <= h[r, s] and h[r, s+1] <= h[r, s]: edge (u=above, v=below, 0)
+            rows.append(np.stack([site[:-1, :].ravel(), site[1:, :].ravel()], axis=1))
+            rows.append(np.stack([site[:, :-1].ravel(), site[:, 1:].ravel()], axis=1))
+            # h[0, s] <= c and h[r, 0] <= c
+            rows.append(np.stack([np.full(b, top), site[0, :]], axis=1))
+            rows.append(np.stack([np.full(a, top), site[:, 0]], axis=1))
+            # 0 <= h[a-1, s] and 0 <= h[r, b-1]
+            rows.append(np.stack([site[-1, :], np.full(b, floor)], axis=1))
+            rows.append(np.stack([site[:, -1], np.full(a, floor)], axis=1))
+            pairs = np.concatenate([r.reshape(-1, 2) for r in rows]) if n else np.zeros((0, 2), np.int64)
+            constraints = np.concatenate([pairs, np.zeros((len(pairs), 1), np.int64)], axis=1)
+            r, s = np.divmod(np.arange(n), b) if b else (np.zeros(0, int), np.zeros(0, int))
+            self._model = HeightModel(n, np.array([c, 0]), constraints, np.zeros(n), 1, (r + s) % 2)
+        return self._model
+
+    def _cells(self, node_heights: np.ndarray) -> np.ndarray:
+        return np.asarray(node_heights[: self.a * self.b], dtype=np.int32).reshape(self.a, self.b)
+
+    # ----- Region interface ----------------------------------------------
+    def _kernel(self, method: str) -> str:
+        if method not in KERNELS:
+            raise ValueError(f"method must be one of {KERNELS}, got {method!r}")
+        return "box" if method == "auto" else method
+
+    def _run_exact(self, key, method, check_order, max_start_time, progress: ProgressHook):
+        kernel = self._kernel(method)
+        if kernel == "box":
+            cells, report = _core.lozenge.box_sample(self.a, self.b, self.c, self.q, key[0], key[1],
+                                                     check_order, max_start_time, progress)
+            return np.asarray(cells, dtype=np.int32), report, "box"
+        heights, report = self.lower().sample(self.q, key, check_order=check_order,
+                                              max_start_time=max_start_time, progress=progress)
+        return self._cells(heights), report, "generic"
+
+    def _start_cells(self, start: StartLike) -> np.ndarray:
+        if isinstance(start, str):
+            if start not in ("min", "max"):
+                raise ValueError(f"start must be 'min', 'max' or a plane partition array, got {start!r}")
+            return np.full((self.a, self.b), 0 if start == "min" else self.c, dtype=np.int32)
+        pp = np.asarray(start)
+        if pp.shape != (self.a, self.b):
+            raise ValueError(f"a start plane partition must have shape {(self.a, self.b)}, got {pp.shape}")
+        if not np.issubdtype(pp.dtype, np.integer):
+            raise TypeError(f"a start plane partition must hold integers, got dtype {pp.dtype}")
+        if not is_plane_partition(pp, self.c):
+            raise ValueError(f"start is not a plane partition in the {self.a}x{self.b}x{self.c} box: "
+                             "values must lie in [0, c] and not increase along rows or columns")
+        return pp.astype(np.int32)
+
+    def _make_chain(self, key, start, method) -> Tuple[Any, Callable]:
+        kernel = self._kernel(method)
+        cells = self._start_cells(start)
+        a, b = self.a, self.b
+        if kernel == "box":
+            compiled = _core.lozenge.box_chain(a, b, self.c, self.q, key[0], key[1], cells.ravel())
+            return compiled, lambda h: np.asarray(h).reshape(a + 2, b + 2)[1:-1, 1:-1].copy()
+        nodes = np.concatenate([cells.ravel(), [self.c, 0]])
+        return self.lower().chain(self.q, key, nodes), self._cells
+
+    def tiles_from_heights(self, heights: np.ndarray) -> np.ndarray:
+        """Lozenges (k, 3) of the tiling whose plane partition is ``heights``."""
+        return tiles_of_plane_partition(heights, self.c)
+
+    def count(self) -> int:
+        """Number of plane partitions in the box, by MacMahon's formula (OEIS A008793)."""
+        return counts.macmahon(self.a, self.b, self.c)
+
+    def partition_function(self) -> Any:
+        """Sum of q^volume over plane partitions in the box (MacMahon's q-analogue).
+
+        An int when q = 1; a ``fractions.Fraction`` (q at its exact binary value)
+        when the exact value is of moderate size; otherwise a float, or an
+        ``mpmath.mpf`` when a float would overflow.
+        """
+        if self.q == 1.0:
+            return self.count()
+        return counts.q_partition_function(self.a, self.b, self.c, self._q_exact)
+
+    def volume_polynomial(self) -> list:
+        """Coefficients [n_0, n_1, ..., n_abc]: n_v plane partitions of volume v."""
+        return counts.volume_polynomial(self.a, self.b, self.c)
+
+    def draw(self, sample: Sample, ax: Any = None, **style: Any) -> Any:
+        """Draw the tiling (three tones, cube tops palest)."""
+        return draw_lozenges(sample.tiles, ax=ax, **style)
+
+
+def is_plane_partition(pp: np.ndarray, c: int) -> bool:
+    """True when ``pp`` has values in [0, c] and is non-increasing along both axes."""
+    pp = np.asarray(pp)
+    if pp.size == 0:
+        return True
+    return bool(pp.min() >= 0 and pp.max() <= c and np.all(np.diff(pp, axis=0) <= 0)
+                and np.all(np.diff(pp, axis=1) <= 0))
+
+
+def hexagon(a: int, b: int, c: int, q: QLike = 1.0) -> HexagonRegion:
+    """The a, b, c hexagon (plane partitions in an a x b x c box), weight q ** volume.
+
+    Parameters
+    ----------
+    a, b, c : int
+        Non-negative side lengths (0 gives a degenerate hexagon with one tiling).
+    q : float or Fraction
+        Weight per cube; 1 is the uniform measure.
+
+    Examples
+    --------
+    >>> import frostline as fl
+    >>> R = fl.lozenge.hexagon(3, 3, 3)
+    >>> R.count()
+    980
+    >>> S = R.sample(seed=1)
+    >>> S.heights.shape, int((S.tiles[:, 2] == 0).sum())
+    ((3, 3), 9)
+    """
+    return HexagonRegion(a, b, c, q)

@@ -1,0 +1,109 @@
+"""The generic height model (DESIGN.md section 1) as seen from Python.
+
+Every plugin lowers its regions to a :class:`HeightModel`; the compiled engine
+samples it by monotone coupling from the past and runs forward heat-bath
+chains on it. It is the reference path against which fast kernels are tested.
+
+Conventions
+-----------
+Nodes ``0 .. n_sites - 1`` are free sites; nodes ``n_sites ..`` are boundary
+nodes with fixed heights. A constraint row ``(u, v, c)`` means
+``h[v] - h[u] <= c``. Heights satisfy ``h[v] = residue[v] (mod step)``; the
+weight ``q`` multiplies a configuration's weight by ``q`` for each step of
+``step`` at any site (``q ** (h / step)`` summed over sites, up to a constant).
+Sites of one colour class are never joined by a constraint.
+"""
+from __future__ import annotations
+
+from typing import Callable, Optional, Tuple
+
+import numpy as np
+
+from . import _core
+
+ProgressHook = Optional[Callable[[int, int, float], None]]
+
+_NO_LIMIT = 2**40
+
+
+class HeightModel:
+    """A height model described by arrays; see the module docstring for conventions.
+
+    Parameters
+    ----------
+    n_sites : int
+        Number of free sites.
+    boundary_values : array of int
+        Fixed heights of the boundary nodes.
+    constraints : (E, 3) array of int
+        Rows ``(u, v, c)``: ``h[v] - h[u] <= c``.
+    residues : array of int, length ``n_sites``
+        Residue of each site's height modulo ``step``.
+    step : int
+        The height step of a local move (one cube of weight ``q``).
+    colour_classes : array of int, length ``n_sites``
+        Class of each site; classes are updated in increasing order.
+    """
+
+    def __init__(
+        self,
+        n_sites: int,
+        boundary_values: np.ndarray,
+        constraints: np.ndarray,
+        residues: np.ndarray,
+        step: int,
+        colour_classes: np.ndarray,
+    ) -> None:
+        self.n_sites = int(n_sites)
+        self.step = int(step)
+        self._compiled = _core.engine.HeightModel(
+            self.n_sites,
+            np.ascontiguousarray(boundary_values, dtype=np.int32),
+            np.ascontiguousarray(constraints, dtype=np.int32).reshape(-1, 3),
+            np.ascontiguousarray(residues, dtype=np.int32),
+            self.step,
+            np.ascontiguousarray(colour_classes, dtype=np.int32),
+        )
+        self._extremes: Optional[Tuple[np.ndarray, np.ndarray]] = None
+
+    @property
+    def n_nodes(self) -> int:
+        """Sites plus boundary nodes."""
+        return int(self._compiled.n_nodes)
+
+    def extremes(self) -> Tuple[np.ndarray, np.ndarray]:
+        """Least and greatest height functions over all nodes (Thurston's algorithm).
+
+        Raises ValueError, naming the place, when no configuration exists.
+        """
+        if self._extremes is None:
+            self._extremes = _core.engine.extremes(self._compiled)
+        return self._extremes
+
+    def _height_range(self) -> Tuple[int, int]:
+        least, greatest = self.extremes()
+        if least.size == 0:
+            return 0, 0
+        return int(least.min()), int(greatest.max())
+
+    def sample(
+        self,
+        q: float,
+        key: Tuple[int, int],
+        *,
+        check_order: bool = False,
+        max_start_time: int = _NO_LIMIT,
+        progress: ProgressHook = None,
+    ) -> Tuple[np.ndarray, dict]:
+        """One exact sample (heights over all nodes) and the engine's report."""
+        least, greatest = self.extremes()
+        return _core.engine.sample(
+            self._compiled, least, greatest, float(q), key[0], key[1], check_order, max_start_time, progress
+        )
+
+    def chain(self, q: float, key: Tuple[int, int], start: np.ndarray, time: int = 0):
+        """A compiled forward chain from ``start`` (heights over all nodes)."""
+        low, high = self._height_range()
+        return _core.engine.generic_chain(
+            self._compiled, np.ascontiguousarray(start, dtype=np.int32), low, high, float(q), key[0], key[1], time
+        )

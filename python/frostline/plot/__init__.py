@@ -1,0 +1,40 @@
+"""Pictures of samples. matplotlib is imported only when a function here runs.
+
+Each plugin draws its own tiles (``Sample.plot``); this module adds files and
+figures around that, for any lattice.
+"""
+from __future__ import annotations
+
+import os
+from typing import Any, Optional
+
+FORMATS = (".png", ".svg", ".pdf")
+
+
+def _pyplot():
+    try:
+        import matplotlib.pyplot as plt  # picks a non-interactive backend without a display
+    except ImportError as exc:  # pragma: no cover - depends on the environment
+        raise ImportError("pictures need matplotlib: pip install 'frostline[plot]'") from exc
+    return plt
+
+
+def save(sample: Any, path: str, *, size: float = 6.0, dpi: int = 200, title: Optional[str] = None,
+         **style: Any) -> str:
+    """Draw ``sample`` and write it to ``path`` (format from the extension: .png, .svg or .pdf).
+
+    ``size`` is the figure's side in inches; returns the path written.
+    """
+    ext = os.path.splitext(str(path))[1].lower()
+    if ext not in FORMATS:
+        raise ValueError(f"picture format {ext or '(none)'!r} is not supported; use one of {', '.join(FORMATS)}")
+    plt = _pyplot()
+    fig, ax = plt.subplots(figsize=(size, size))
+    try:
+        sample.plot(ax=ax, **style)
+        if title:
+            ax.set_title(title)
+        fig.savefig(path, dpi=dpi, bbox_inches="tight")
+    finally:
+        plt.close(fig)
+    return str(path)
