@@ -27,7 +27,7 @@ def draw_lozenges(tiles: np.ndarray, ax: Any = None, *, tones: Sequence[str] = F
     tiles = np.asarray(tiles).reshape(-1, 3)
     polygons = lozenge_polygons(tiles)
     colours = list(np.array(tones, dtype=object)[tiles[:, 2]]) if len(tiles) else []
-    large = len(tiles) > 3000
+    large = len(tiles) > 1000
     if edge_width is None:
         edge_width = 0.25 if large else 0.6
     if edge_colour is None:

@@ -87,19 +87,21 @@ class HexagonRegion(Region):
             n = a * b
             top, floor = n, n + 1
             site = np.arange(n, dtype=np.int64).reshape(a, b)
-            rows = []
-            # h[r+1, s] <= h[r, s] and h[r, s+1] <= h[r, s]: edge (u=above, v=below, 0)
-            rows.append(np.stack([site[:-1, :].ravel(), site[1:, :].ravel()], axis=1))
-            rows.append(np.stack([site[:, :-1].ravel(), site[:, 1:].ravel()], axis=1))
-            # h[0, s] <= c and h[r, 0] <= c
-            rows.append(np.stack([np.full(b, top), site[0, :]], axis=1))
-            rows.append(np.stack([np.full(a, top), site[:, 0]], axis=1))
-            # 0 <= h[a-1, s] and 0 <= h[r, b-1]
-            rows.append(np.stack([site[-1, :], np.full(b, floor)], axis=1))
-            rows.append(np.stack([site[:, -1], np.full(a, floor)], axis=1))
-            pairs = np.concatenate([r.reshape(-1, 2) for r in rows]) if n else np.zeros((0, 2), np.int64)
+            pairs = np.zeros((0, 2), np.int64)
+            if n:
+                pairs = np.concatenate([
+                    # h[r+1, s] <= h[r, s] and h[r, s+1] <= h[r, s]: rows (above, below)
+                    np.stack([site[:-1, :].ravel(), site[1:, :].ravel()], axis=1),
+                    np.stack([site[:, :-1].ravel(), site[:, 1:].ravel()], axis=1),
+                    # h[0, s] <= c and h[r, 0] <= c
+                    np.stack([np.full(b, top), site[0, :]], axis=1),
+                    np.stack([np.full(a, top), site[:, 0]], axis=1),
+                    # 0 <= h[a-1, s] and 0 <= h[r, b-1]
+                    np.stack([site[-1, :], np.full(b, floor)], axis=1),
+                    np.stack([site[:, -1], np.full(a, floor)], axis=1),
+                ])
             constraints = np.concatenate([pairs, np.zeros((len(pairs), 1), np.int64)], axis=1)
-            r, s = np.divmod(np.arange(n), b) if b else (np.zeros(0, int), np.zeros(0, int))
+            r, s = np.divmod(np.arange(n), max(b, 1))
             self._model = HeightModel(n, np.array([c, 0]), constraints, np.zeros(n), 1, (r + s) % 2)
         return self._model
 

@@ -1,0 +1,52 @@
+# Type stubs for the compiled module frostline._core (private).
+# Its submodules are written as classes with static methods so that one stub
+# file describes them; at run time they are pybind11 submodules.
+from typing import Callable, Optional, Tuple
+
+import numpy as np
+import numpy.typing as npt
+
+ProgressHook = Optional[Callable[[int, int, float], None]]
+IntArray = npt.NDArray[np.int32]
+
+class ForwardChain:
+    def run(self, sweeps: int, progress: ProgressHook = ...) -> int: ...
+    @property
+    def heights(self) -> IntArray: ...
+    @property
+    def time(self) -> int: ...
+
+class engine:
+    class HeightModel:
+        def __init__(self, n_sites: int, boundary_values: npt.ArrayLike, constraints: npt.ArrayLike,
+                     residues: npt.ArrayLike, step: int, colour_classes: npt.ArrayLike) -> None: ...
+        @property
+        def n_sites(self) -> int: ...
+        @property
+        def n_nodes(self) -> int: ...
+        @property
+        def step(self) -> int: ...
+        @property
+        def n_colour_classes(self) -> int: ...
+
+    ForwardChain = ForwardChain
+
+    @staticmethod
+    def extremes(model: "engine.HeightModel") -> Tuple[IntArray, IntArray]: ...
+    @staticmethod
+    def sample(model: "engine.HeightModel", least: IntArray, greatest: IntArray, q: float, key0: int, key1: int,
+               check_order: bool = ..., max_start_time: int = ..., progress: ProgressHook = ...) -> Tuple[IntArray, dict]: ...
+    @staticmethod
+    def generic_chain(model: "engine.HeightModel", start: IntArray, min_height: int, max_height: int, q: float,
+                      key0: int, key1: int, time: int = ...) -> ForwardChain: ...
+    @staticmethod
+    def heat_bath_draws(lo: int, hi: int, step: int, q: float, min_height: int, max_height: int,
+                        bits: npt.NDArray[np.uint64]) -> IntArray: ...
+
+class lozenge:
+    @staticmethod
+    def box_sample(a: int, b: int, c: int, q: float, key0: int, key1: int, check_order: bool = ...,
+                   max_start_time: int = ..., progress: ProgressHook = ...) -> Tuple[IntArray, dict]: ...
+    @staticmethod
+    def box_chain(a: int, b: int, c: int, q: float, key0: int, key1: int, start: IntArray,
+                  time: int = ...) -> ForwardChain: ...

@@ -1,0 +1,1 @@
+"""Independent reference code used only by the tests (never imported by frostline)."""
