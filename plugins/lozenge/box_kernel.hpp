@@ -63,24 +63,46 @@ public:
 
     void sweep(std::int32_t* h, std::int64_t time) const {
         const std::uint64_t base = sweep_base(key_, stream_, time);
-        const std::int32_t a = layout_.rows(), b = layout_.columns();
+        for (std::int32_t parity = 0; parity < 2; ++parity)
+            for (std::int32_t r = 0; r < layout_.rows(); ++r) update_row(h, r, parity, base);
+    }
+
+    // Both CFTP chains in one pass: each site's random bits are computed once
+    // and used by both (the same bits the single-chain sweep would use).
+    void sweep_pair(std::int32_t* top, std::int32_t* bottom, std::int64_t time) const {
+        const std::uint64_t base = sweep_base(key_, stream_, time);
+        const std::int32_t b = layout_.columns();
         const std::int64_t w = layout_.width();
         for (std::int32_t parity = 0; parity < 2; ++parity) {
-            for (std::int32_t r = 0; r < a; ++r) {
-                std::int32_t* row = h + layout_.index(r, 0);
-                const std::int32_t* above = row - w;
-                const std::int32_t* below = row + w;
+            for (std::int32_t r = 0; r < layout_.rows(); ++r) {
+                std::int32_t* row_t = top + layout_.index(r, 0);
+                std::int32_t* row_b = bottom + layout_.index(r, 0);
                 const std::uint64_t first_site = static_cast<std::uint64_t>(r) * b;
                 for (std::int32_t s = (parity + r) & 1; s < b; s += 2) {
-                    const std::int32_t hi = std::min(above[s], row[s - 1]);
-                    const std::int32_t lo = std::max(below[s], row[s + 1]);
-                    row[s] = rule_.draw(lo, hi, site_bits(base, first_site + s));
+                    const std::int32_t hi_t = std::min(row_t[s - w], row_t[s - 1]);
+                    const std::int32_t lo_t = std::max(row_t[s + w], row_t[s + 1]);
+                    const std::int32_t hi_b = std::min(row_b[s - w], row_b[s - 1]);
+                    const std::int32_t lo_b = std::max(row_b[s + w], row_b[s + 1]);
+                    const std::uint64_t bits = site_bits(base, first_site + s);
+                    row_t[s] = rule_.draw(lo_t, hi_t, bits);
+                    row_b[s] = rule_.draw(lo_b, hi_b, bits);
                 }
             }
         }
     }
 
 private:
+    void update_row(std::int32_t* h, std::int32_t r, std::int32_t parity, std::uint64_t base) const {
+        const std::int64_t w = layout_.width();
+        std::int32_t* row = h + layout_.index(r, 0);
+        const std::uint64_t first_site = static_cast<std::uint64_t>(r) * layout_.columns();
+        for (std::int32_t s = (parity + r) & 1; s < layout_.columns(); s += 2) {
+            const std::int32_t hi = std::min(row[s - w], row[s - 1]);
+            const std::int32_t lo = std::max(row[s + w], row[s + 1]);
+            row[s] = rule_.draw(lo, hi, site_bits(base, first_site + s));
+        }
+    }
+
     box_layout layout_;
     Rule rule_;
     random_key key_;

@@ -14,6 +14,7 @@
 #include <cstdint>
 #include <functional>
 #include <string>
+#include <type_traits>
 #include <vector>
 
 #include "errors.hpp"
@@ -83,6 +84,25 @@ private:
     std::int64_t since_poll_ = 0;
 };
 
+// Sweeps both chains at time t: in one pass when the sweeper offers
+// sweep_pair (shared random bits, half the hashing), else one after the other.
+template <class Sweeper, class = void>
+struct has_sweep_pair : std::false_type {};
+template <class Sweeper>
+struct has_sweep_pair<Sweeper, std::void_t<decltype(std::declval<const Sweeper&>().sweep_pair(
+                                   std::declval<std::int32_t*>(), std::declval<std::int32_t*>(), std::int64_t{}))>>
+    : std::true_type {};
+
+template <class Sweeper>
+void sweep_both(const Sweeper& sweeper, std::int32_t* top, std::int32_t* bottom, std::int64_t t) {
+    if constexpr (has_sweep_pair<Sweeper>::value) {
+        sweeper.sweep_pair(top, bottom, t);
+    } else {
+        sweeper.sweep(top, t);
+        sweeper.sweep(bottom, t);
+    }
+}
+
 inline void check_order(const std::vector<std::int32_t>& top, const std::vector<std::int32_t>& bottom,
                         std::int64_t time) {
     for (std::size_t v = 0; v < top.size(); ++v)
@@ -122,12 +142,12 @@ std::vector<std::int32_t> monotone_cftp(const Sweeper& sweeper, const std::vecto
         bottom = least;
         bool met = false;
         for (std::int64_t t = -T; t < 0; ++t) {
-            sweeper.sweep(top.data(), t);
             if (met) {
+                sweeper.sweep(top.data(), t);
                 poll.add(n, T);
                 continue;
             }
-            sweeper.sweep(bottom.data(), t);
+            detail::sweep_both(sweeper, top.data(), bottom.data(), t);
             poll.add(2 * n, T);
             if (control.check_order) detail::check_order(top, bottom, t);
             if ((t + T + 1) % compare_every == 0 || t == -1) {
