@@ -15,6 +15,7 @@ Sites of one colour class are never joined by a constraint.
 """
 from __future__ import annotations
 
+import re
 from typing import Callable, Optional, Tuple
 
 import numpy as np
@@ -43,6 +44,8 @@ class HeightModel:
         The height step of a local move (one cube of weight ``q``).
     colour_classes : array of int, length ``n_sites``
         Class of each site; classes are updated in increasing order.
+    node_label : callable(int) -> str, optional
+        Names a node in error messages (a plugin passes lattice coordinates).
     """
 
     def __init__(
@@ -53,18 +56,19 @@ class HeightModel:
         residues: np.ndarray,
         step: int,
         colour_classes: np.ndarray,
+        node_label: Optional[Callable[[int], str]] = None,
     ) -> None:
         self.n_sites = int(n_sites)
         self.step = int(step)
+        self.boundary_values = np.ascontiguousarray(boundary_values, dtype=np.int32).ravel()
+        self.constraints = np.ascontiguousarray(constraints, dtype=np.int32).reshape(-1, 3)
+        self.residues = np.ascontiguousarray(residues, dtype=np.int32).ravel()
+        self.colour_classes = np.ascontiguousarray(colour_classes, dtype=np.int32).ravel()
         self._compiled = _core.engine.HeightModel(
-            self.n_sites,
-            np.ascontiguousarray(boundary_values, dtype=np.int32),
-            np.ascontiguousarray(constraints, dtype=np.int32).reshape(-1, 3),
-            np.ascontiguousarray(residues, dtype=np.int32),
-            self.step,
-            np.ascontiguousarray(colour_classes, dtype=np.int32),
+            self.n_sites, self.boundary_values, self.constraints, self.residues, self.step, self.colour_classes
         )
         self._extremes: Optional[Tuple[np.ndarray, np.ndarray]] = None
+        self._node_label = node_label
 
     @property
     def n_nodes(self) -> int:
@@ -77,8 +81,18 @@ class HeightModel:
         Raises ValueError, naming the place, when no configuration exists.
         """
         if self._extremes is None:
-            self._extremes = _core.engine.extremes(self._compiled)
+            try:
+                self._extremes = _core.engine.extremes(self._compiled)
+            except ValueError as exc:
+                raise ValueError(self._relabel(str(exc))) from None
         return self._extremes
+
+    def _relabel(self, message: str) -> str:
+        """Replace engine node numbers in a message by the plugin's names for them."""
+        if self._node_label is None:
+            return message
+        label = self._node_label
+        return re.sub(r"\b(node|site)s? (\d+)", lambda m: f"{m.group(1)} {label(int(m.group(2)))}", message)
 
     def _height_range(self) -> Tuple[int, int]:
         least, greatest = self.extremes()

@@ -47,8 +47,8 @@ inline std::vector<std::int64_t> boundary_distances(std::int32_t n_sites,
         source[n_sites + b] = static_cast<std::int32_t>(n_sites + b);
     }
     auto conflict = [&](std::int32_t node, std::int64_t, std::int32_t from) {
-        throw invalid_model("the boundary is inconsistent: the fixed heights of boundary nodes " +
-                            std::to_string(from) + " and " + std::to_string(node) +
+        throw invalid_model("the boundary is inconsistent: the fixed heights of boundary node " +
+                            std::to_string(from) + " and boundary node " + std::to_string(node) +
                             " differ by more than the constraints between them allow, so no configuration exists");
     };
     if (!any_negative) {

@@ -1,0 +1,365 @@
+"""Lozenge tilings of any region of unit triangles (simply connected pieces).
+
+Heights live on lattice points with step 3: along an edge in the directions
+(1, 0), (-1, 1), (0, -1) (counter-clockwise around an up triangle) the height
+rises by 1 where no lozenge crosses the edge and falls by 2 where one does.
+Boundary edges are never crossed, so the boundary heights are fixed by walking
+the boundary; interior points are the free sites of the generic model
+(Thurston's height function, step 3, residue (i - j) mod 3, three colour
+classes (i - j) mod 3). Raising a height by 3 adds one cube to the stack, so
+the weight q ** volume is q ** (sum of heights / 3) up to a constant.
+
+Relation to the box hexagon: for the a, b, c hexagon, the height at lattice
+point (x, y) is its least value plus 3 m, where m counts the cubes centred
+there in the projection: the cubes (x + z, y - 1 - z, z) of the stack.
+"""
+from __future__ import annotations
+
+import numbers
+from typing import Any, Callable, Dict, Iterable, Optional, Tuple
+
+import numpy as np
+
+from frostline._limits import check_memory
+from frostline.model import HeightModel, ProgressHook
+from frostline.region import Region, Sample, StartLike
+
+from .drawing import draw_lozenges
+from .geometry import EDGE_ENDS, PARTNER, TriangleGrid, walk_boundary
+from .hexagon import QLike, _weight
+from .tiles import TILE_CLASSES
+
+KERNELS = ("auto", "generic")
+
+
+class LozengeRegion(Region):
+    """Lozenge tilings of a region of unit triangles, weight q ** volume.
+
+    ``Sample.heights`` is an int32 array over the bounding box of the region's
+    lattice points: entry [i - i0, j - j0] is the height at point (i, j), where
+    (i0, j0) = ``region.origin``; ``region.vertex_mask`` marks the points in the
+    region (entries outside it are 0). ``Sample.tiles`` holds (x, y, t) rows.
+    """
+
+    lattice = "lozenge"
+    tile_classes = TILE_CLASSES
+
+    def __init__(self, triangles: np.ndarray, q: QLike = 1.0, *, description: Optional[Dict[str, Any]] = None):
+        self.q, self._q_exact = _weight(q)
+        tri = _as_triangles(triangles)
+        check_memory(400 * len(tri) + 10**6, f"a region of {len(tri)} triangles")
+        self.triangles = tri
+        self._description = description or {"shape": "triangles"}
+        n_up = int((tri[:, 2] == 0).sum())
+        n_down = len(tri) - n_up
+        if n_up != n_down:
+            raise ValueError(
+                f"the region cannot be tiled: it has {n_up} up and {n_down} down triangles, and every lozenge "
+                "covers one of each"
+            )
+        self.grid = TriangleGrid.from_triangles(tri)
+        self._build()
+
+    # ----- construction --------------------------------------------------------
+    def _build(self) -> None:
+        g = self.grid
+        in_region, interior = g.vertex_masks()
+        boundary_heights, components = walk_boundary(g)
+        self._refuse_holes(components)
+        # node numbering: free sites first (row-major on the grid), then boundary points
+        node = np.full(g.up.shape, -1, dtype=np.int64)
+        sites = np.argwhere(interior)
+        node[interior] = np.arange(len(sites))
+        boundary_points = sorted(boundary_heights)
+        for k, (p, q) in enumerate(boundary_points):
+            node[p, q] = len(sites) + k
+        if np.any(in_region & (node < 0)):
+            raise AssertionError("a region point is neither interior nor on the boundary")
+        ox, oy = g.origin
+        inner, _ = g.edge_masks()
+        rows = []
+        for t in range(3):
+            fp, fq, tp, tq = g.edge_ends(t, inner[t])
+            a, b = node[fp, fq], node[tp, tq]
+            rows.append(np.stack([a, b, np.ones_like(a)], axis=1))       # h[to] - h[from] <= 1
+            rows.append(np.stack([b, a, np.full_like(a, 2)], axis=1))    # h[from] - h[to] <= 2
+        constraints = np.concatenate(rows) if rows else np.zeros((0, 3), np.int64)
+        i, j = sites[:, 0] + ox, sites[:, 1] + oy
+        colour = (i - j) % 3
+        labels = [(int(p + ox), int(q + oy)) for p, q in np.concatenate([sites, np.array(boundary_points).reshape(-1, 2)])]
+        self._model = HeightModel(len(sites), np.array([boundary_heights[v] for v in boundary_points]),
+                                  constraints, colour, 3, colour, node_label=lambda k: f"{labels[k]}")
+        self._node = node
+        self._sites = sites
+        self._boundary_points = np.array(boundary_points, dtype=np.int64).reshape(-1, 2)
+        self._inner = inner
+        # crop to the bounding box of the region's points
+        pts = np.argwhere(in_region)
+        self._crop = (slice(pts[:, 0].min(), pts[:, 0].max() + 1), slice(pts[:, 1].min(), pts[:, 1].max() + 1))
+        self.origin = (int(pts[:, 0].min() + ox), int(pts[:, 1].min() + oy))
+        self.vertex_mask = in_region[self._crop].copy()
+        self._model.extremes()  # decides tileability now, with the error naming the place
+
+    def _refuse_holes(self, components) -> None:
+        labels, n_pieces = self.grid.pieces()
+        component_of = {}
+        for k, members in enumerate(components):
+            for v in members:
+                component_of[v] = k
+        _, outer = self.grid.edge_masks()
+        seen: Dict[int, set] = {}
+        for t in range(3):
+            fp, fq, _, _ = self.grid.edge_ends(t, outer[t])
+            p, q = np.nonzero(outer[t])
+            dx, dy = PARTNER[t]
+            for a, b, pp, qq in zip(fp.tolist(), fq.tolist(), p.tolist(), q.tolist()):
+                piece = labels[0, pp, qq] if self.grid.up[pp, qq] else labels[1, pp + dx, qq + dy]
+                seen.setdefault(int(piece), set()).add(component_of[(a, b)])
+        for piece, comps in seen.items():
+            if len(comps) > 1:
+                inner_comp = sorted(comps)[1]
+                p, q = components[inner_comp][0]
+                raise ValueError(
+                    f"the region has a hole: the boundary through the lattice point ({p + self.grid.origin[0]}, "
+                    f"{q + self.grid.origin[1]}) is separate from the outer boundary of its piece; frostline samples "
+                    "regions whose pieces are simply connected: fill the hole, or split the region along a cut"
+                )
+
+    # ----- conversions -----------------------------------------------------------
+    def _grid_heights(self, node_heights: np.ndarray) -> np.ndarray:
+        h = np.zeros(self.grid.up.shape, dtype=np.int32)
+        mask = self._node >= 0
+        h[mask] = np.asarray(node_heights)[self._node[mask]]
+        return h
+
+    def _heights_from_nodes(self, node_heights: np.ndarray) -> np.ndarray:
+        return np.where(self.vertex_mask, self._grid_heights(node_heights)[self._crop], 0).astype(np.int32)
+
+    def _nodes_from_heights(self, heights: np.ndarray) -> np.ndarray:
+        h = np.asarray(heights)
+        if h.shape != self.vertex_mask.shape:
+            raise ValueError(f"heights must have shape {self.vertex_mask.shape} (the region's points), got {h.shape}")
+        full = np.zeros(self.grid.up.shape, dtype=np.int64)
+        full[self._crop] = h
+        out = np.empty(self._model.n_nodes, dtype=np.int64)
+        mask = self._node >= 0
+        out[self._node[mask]] = full[mask]
+        return out
+
+    def tiles_from_heights(self, heights: np.ndarray) -> np.ndarray:
+        """Lozenges (k, 3) of the tiling with these heights: edge (x, y, t) is crossed where the height falls by 2."""
+        full = np.zeros(self.grid.up.shape, dtype=np.int64)
+        full[self._crop] = heights
+        ox, oy = self.grid.origin
+        rows = []
+        for t in range(3):
+            p, q = np.nonzero(self._inner[t])
+            (fx, fy), (tx, ty) = EDGE_ENDS[t]
+            crossed = full[p + tx, q + ty] - full[p + fx, q + fy] == -2
+            rows.append(np.stack([p[crossed] + ox, q[crossed] + oy, np.full(crossed.sum(), t)], axis=1))
+        tiles = np.concatenate(rows).astype(np.int64)
+        return tiles[np.lexsort((tiles[:, 2], tiles[:, 1], tiles[:, 0]))]
+
+    def heights_from_tiles(self, tiles: np.ndarray) -> np.ndarray:
+        """Heights of the tiling given by ``tiles`` (rows (x, y, t)).
+
+        Raises ValueError unless the tiles cover every triangle of the region exactly once.
+        """
+        tiles = np.asarray(tiles, dtype=np.int64).reshape(-1, 3)
+        if len(tiles) and (tiles[:, 2].min() < 0 or tiles[:, 2].max() > 2):
+            raise ValueError("a lozenge type must be 0, 1 or 2")
+        covered = np.concatenate([
+            np.stack([tiles[:, 0], tiles[:, 1], np.zeros(len(tiles), np.int64)], axis=1),
+            np.stack([tiles[:, 0] + np.array(PARTNER)[tiles[:, 2], 0],
+                      tiles[:, 1] + np.array(PARTNER)[tiles[:, 2], 1], np.ones(len(tiles), np.int64)], axis=1),
+        ])
+        covered = covered[np.lexsort((covered[:, 2], covered[:, 1], covered[:, 0]))]
+        if not np.array_equal(covered, self.triangles):
+            raise ValueError("the lozenges do not cover every triangle of the region exactly once")
+        ox, oy = self.grid.origin
+        crossed = [np.zeros(self.grid.up.shape, bool) for _ in range(3)]
+        for t in range(3):
+            sel = tiles[tiles[:, 2] == t]
+            crossed[t][sel[:, 0] - ox, sel[:, 1] - oy] = True
+        # integrate from the boundary along interior edges
+        h = self._grid_heights(self._model.extremes()[0]).astype(np.int64)
+        known = np.zeros(h.shape, bool)
+        known[self._boundary_points[:, 0], self._boundary_points[:, 1]] = True
+        steps = []
+        for t in range(3):
+            fp, fq, tp, tq = self.grid.edge_ends(t, self._inner[t])
+            p, q = np.nonzero(self._inner[t])
+            delta = np.where(crossed[t][p, q], -2, 1)
+            steps.append((fp, fq, tp, tq, delta))
+        while not known[self._sites[:, 0], self._sites[:, 1]].all():
+            progress = False
+            for fp, fq, tp, tq, delta in steps:
+                forward = known[fp, fq] & ~known[tp, tq]
+                h[tp[forward], tq[forward]] = h[fp[forward], fq[forward]] + delta[forward]
+                known[tp[forward], tq[forward]] = True
+                backward = known[tp, tq] & ~known[fp, fq]
+                h[fp[backward], fq[backward]] = h[tp[backward], tq[backward]] - delta[backward]
+                known[fp[backward], fq[backward]] = True
+                progress = progress or forward.any() or backward.any()
+            if not progress:
+                raise AssertionError("interior points unreachable from the boundary")
+        return np.where(self.vertex_mask, h[self._crop], 0).astype(np.int32)
+
+    # ----- Region interface ----------------------------------------------------
+    def _check_method(self, method: str) -> None:
+        if method not in KERNELS:
+            raise ValueError(f"method must be one of {KERNELS} for a general lozenge region, got {method!r}")
+
+    def _run_exact(self, key, method, check_order, max_start_time, progress: ProgressHook):
+        self._check_method(method)
+        heights, report = self._model.sample(self.q, key, check_order=check_order,
+                                             max_start_time=max_start_time, progress=progress)
+        return self._heights_from_nodes(heights), report, "generic"
+
+    def _make_chain(self, key, start: StartLike, method: str) -> Tuple[Any, Callable]:
+        self._check_method(method)
+        least, greatest = self._model.extremes()
+        if isinstance(start, str):
+            if start not in ("min", "max"):
+                raise ValueError(f"start must be 'min', 'max' or a height array, got {start!r}")
+            nodes = least if start == "min" else greatest
+        else:
+            h = np.asarray(start)
+            if not np.issubdtype(h.dtype, np.integer):
+                raise TypeError(f"start heights must be integers, got dtype {h.dtype}")
+            nodes = self._nodes_from_heights(h)
+            self.tiles_from_heights(h)  # validity below
+            if not self._is_valid(nodes):
+                raise ValueError("start is not a height function of this region (see the height rule in the docs)")
+        return self._model.chain(self.q, key, nodes), self._heights_from_nodes
+
+    def _is_valid(self, nodes: np.ndarray) -> bool:
+        least, greatest = self._model.extremes()
+        c = self._model.constraints
+        ok_bounds = np.array_equal(nodes[self._model.n_sites:], least[self._model.n_sites:])
+        ok_edges = np.all(nodes[c[:, 1]] - nodes[c[:, 0]] <= c[:, 2])
+        ok_residue = np.all((nodes[: self._model.n_sites] - self._model.residues) % 3 == 0)
+        return bool(ok_bounds and ok_edges and ok_residue)
+
+    @property
+    def model(self) -> HeightModel:
+        """The generic height model this region lowers to."""
+        return self._model
+
+    @property
+    def n_lozenges(self) -> int:
+        return len(self.triangles) // 2
+
+    def describe(self) -> Dict[str, Any]:
+        return {"lattice": self.lattice, **self._description, "q": self.q}
+
+    def count(self) -> int:
+        """Number of lozenge tilings: the determinant of the up-down triangle adjacency matrix.
+
+        For lozenges every face of the dual (honeycomb) graph is a hexagon, so
+        the plain 0/1 bipartite adjacency matrix is a Kasteleyn matrix (Kasteleyn
+        1967; Kenyon, "Lectures on dimers", 2009) and |det| counts the tilings of
+        a simply connected region; pieces multiply. Exact integers.
+        """
+        from frostline.exact import integer_determinant
+
+        return abs(integer_determinant(self.adjacency_matrix()))
+
+    def adjacency_matrix(self) -> np.ndarray:
+        """Bipartite adjacency: rows = up triangles, columns = down triangles (both row-major by (y, x))."""
+        up = self.triangles[self.triangles[:, 2] == 0]
+        down = self.triangles[self.triangles[:, 2] == 1]
+        up = up[np.lexsort((up[:, 0], up[:, 1]))]
+        down = down[np.lexsort((down[:, 0], down[:, 1]))]
+        index = {(int(x), int(y)): k for k, (x, y, _) in enumerate(down)}
+        check_memory(8 * len(up) ** 2, f"the {len(up)}x{len(up)} adjacency matrix")
+        a = np.zeros((len(up), len(down)), dtype=np.int64)
+        for r, (x, y, _) in enumerate(up):
+            for dx, dy in PARTNER:
+                k = index.get((int(x + dx), int(y + dy)))
+                if k is not None:
+                    a[r, k] = 1
+        return a
+
+    def partition_function(self) -> Any:
+        """Sum of q ** volume over tilings: the count when q = 1, otherwise exact by enumeration.
+
+        Enumeration is for small regions (at most 200,000 tilings); larger
+        weighted regions raise ValueError saying so.
+        """
+        if self.q == 1.0:
+            return self.count()
+        from fractions import Fraction
+
+        from frostline.exact import enumerate_heights
+
+        states = enumerate_heights(self._model)
+        n = self._model.n_sites
+        least = self._model.extremes()[0][:n].astype(np.int64)
+        volumes = (states[:, :n].astype(np.int64) - least).sum(axis=1) // 3
+        q = self._q_exact
+        return sum((q ** int(v) for v in volumes), Fraction(0))
+
+    def draw(self, sample: Sample, ax: Any = None, **style: Any) -> Any:
+        return draw_lozenges(sample.tiles, ax=ax, **style)
+
+    def __repr__(self) -> str:
+        return f"LozengeRegion({self._description}, lozenges={self.n_lozenges}, q={self.q!r})"
+
+
+def _as_triangles(triangles: Iterable) -> np.ndarray:
+    try:
+        t = np.asarray(list(triangles) if not isinstance(triangles, np.ndarray) else triangles)
+    except TypeError as exc:
+        raise TypeError("triangles must be an iterable of (x, y, s) rows") from exc
+    if t.size == 0:
+        raise ValueError("the region is empty: give at least one up and one down triangle")
+    if t.ndim != 2 or t.shape[1] != 3:
+        raise ValueError(f"triangles must be rows (x, y, s), got an array of shape {t.shape}")
+    if not np.issubdtype(t.dtype, np.integer):
+        if np.issubdtype(t.dtype, np.number) and np.all(t == np.round(t)):
+            t = t.astype(np.int64)
+        else:
+            raise TypeError(f"triangle coordinates must be integers, got dtype {t.dtype}")
+    if not np.isin(t[:, 2], (0, 1)).all():
+        raise ValueError("the orientation s of a triangle (x, y, s) must be 0 (up) or 1 (down)")
+    if np.abs(t[:, :2]).max() > 2**28:
+        raise ValueError("triangle coordinates are beyond 2^28")
+    t = np.unique(t.astype(np.int64), axis=0)
+    return t
+
+
+def from_triangles(triangles: Iterable, q: QLike = 1.0) -> LozengeRegion:
+    """A region from its unit triangles: rows (x, y, s), s = 0 up, 1 down (DESIGN.md conventions).
+
+    The up triangle (x, y, 0) has corners (x, y), (x+1, y), (x, y+1); the down
+    triangle (x, y, 1) has corners (x+1, y), (x, y+1), (x+1, y+1). Repeated
+    rows count once. Raises ValueError when the region cannot be tiled, with
+    the reason (unequal numbers of up and down triangles, a hole, the place
+    where the height constraints conflict).
+
+    Examples
+    --------
+    >>> import frostline as fl
+    >>> R = fl.lozenge.from_triangles([(0, 0, 0), (0, 0, 1)])
+    >>> R.count()
+    1
+    """
+    return LozengeRegion(_as_triangles(triangles), q, description={"shape": "triangles"})
+
+
+def from_masks(up: np.ndarray, down: np.ndarray, origin: Tuple[int, int] = (0, 0), q: QLike = 1.0) -> LozengeRegion:
+    """A region from two boolean arrays: ``up[a, b]`` marks U(x0 + a, y0 + b), ``down[a, b]`` marks D(x0 + a, y0 + b).
+
+    ``origin`` is (x0, y0). Both arrays must have the same 2-D shape.
+    """
+    up, down = np.asarray(up), np.asarray(down)
+    if up.shape != down.shape or up.ndim != 2:
+        raise ValueError(f"up and down masks must be 2-D arrays of one shape, got {up.shape} and {down.shape}")
+    if up.dtype != bool or down.dtype != bool:
+        raise TypeError("up and down masks must be boolean arrays")
+    if not all(isinstance(v, numbers.Integral) for v in origin) or len(origin) != 2:
+        raise TypeError("origin must be a pair of ints (x0, y0)")
+    rows = [np.concatenate([np.argwhere(m) + np.array(origin), np.full((m.sum(), 1), s)], axis=1)
+            for s, m in ((0, up), (1, down))]
+    return LozengeRegion(_as_triangles(np.concatenate(rows)), q, description={"shape": "masks"})
