@@ -45,7 +45,8 @@ class HeightModel:
     colour_classes : array of int, length ``n_sites``
         Class of each site; classes are updated in increasing order.
     node_label : callable(int) -> str, optional
-        Names a node in error messages (a plugin passes lattice coordinates).
+        A phrase naming a node in error messages, such as "lattice point (2, 3)";
+        it replaces the engine's "site 7" / "boundary node 12".
     """
 
     def __init__(
@@ -92,7 +93,7 @@ class HeightModel:
         if self._node_label is None:
             return message
         label = self._node_label
-        return re.sub(r"\b(node|site)s? (\d+)", lambda m: f"{m.group(1)} {label(int(m.group(2)))}", message)
+        return re.sub(r"\b(?:boundary )?(?:node|site) (\d+)", lambda m: label(int(m.group(1))), message)
 
     def _height_range(self) -> Tuple[int, int]:
         least, greatest = self.extremes()

@@ -88,7 +88,7 @@ class LozengeRegion(Region):
         colour = (i - j) % 3
         labels = [(int(p + ox), int(q + oy)) for p, q in np.concatenate([sites, np.array(boundary_points).reshape(-1, 2)])]
         self._model = HeightModel(len(sites), np.array([boundary_heights[v] for v in boundary_points]),
-                                  constraints, colour, 3, colour, node_label=lambda k: f"{labels[k]}")
+                                  constraints, colour, 3, colour, node_label=lambda k: f"lattice point {labels[k]}")
         self._node = node
         self._sites = sites
         self._boundary_points = np.array(boundary_points, dtype=np.int64).reshape(-1, 2)
