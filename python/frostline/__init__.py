@@ -19,6 +19,7 @@ from typing import Any
 
 from ._version import __version__
 from .errors import FrostlineWarning, RegionTooLargeError
+from .io import load, save
 from .model import HeightModel
 from .region import Chain, Region, Sample, SampleInfo
 from .registry import lattice, lattices
@@ -36,6 +37,8 @@ __all__ = [
     "__version__",
     "lattice",
     "lattices",
+    "load",
+    "save",
 ]
 
 

@@ -1,11 +1,14 @@
 """The ``frostline`` command line.
 
-    frostline sample hexagon 40 40 40 --q 0.95 --seed 7 --picture hexagon.png
-    frostline count hexagon 6 6 6
+    frostline sample hexagon 40 40 40 --q 0.95 --seed 7 --picture hexagon.png --output hexagon.npz
+    frostline sample path "4e 3ne 5nw 4w 3sw 5se" --picture region.svg
+    frostline sample trapezoid 10 6 --notches 0 2 3 7 11 15
+    frostline count path --file outline.txt
+    frostline show hexagon.npz --picture again.pdf
     frostline demo
 
 Ctrl-C stops a run cleanly (exit status 130) at the next check of the engine,
-which happens about every 10^8 site updates.
+about every 10^8 site updates; nothing is written for an unfinished sample.
 """
 from __future__ import annotations
 
@@ -14,47 +17,71 @@ import math
 import sys
 import time
 from pathlib import Path
-from typing import List, Optional, Sequence
+from typing import Optional, Sequence
 
 from ._version import __version__
 
+EXAMPLES = """examples:
+  frostline sample hexagon 40 40 40 --seed 1 --picture hexagon.png
+  frostline sample hexagon 30 30 30 --q 0.93 --output weighted.npz
+  frostline sample path "2(3e 2ne) 4nw 6w 4sw 4se" --picture staircase.pdf
+  frostline sample trapezoid 12 6 --picture trapezoid.png
+  frostline count hexagon 6 6 6
+  frostline show weighted.npz --picture weighted.svg
+  frostline demo --folder pictures
 
-def _add_hexagon(sub: argparse._SubParsersAction, help_text: str) -> argparse.ArgumentParser:
-    p = sub.add_parser("hexagon", help=help_text, description=help_text)
-    p.add_argument("sides", type=int, nargs=3, metavar="SIDE",
-                   help="three side lengths A B C: plane partitions in an A x B x C box")
-    p.add_argument("--q", type=float, default=1.0,
-                   help="weight per unit cube (q ** volume); 1 is uniform (default)")
-    return p
+boundary paths: unit steps e, ne, nw, w, sw, se with counts, groups in
+parentheses; the path must close without touching itself."""
+
+
+def _add_shapes(parent: argparse.ArgumentParser, sampling: bool) -> None:
+    shapes = parent.add_subparsers(dest="shape", metavar="SHAPE", required=True)
+    hexagon = shapes.add_parser("hexagon", help="the A, B, C hexagon (plane partitions in a box)",
+                                description="Lozenge tilings of the A, B, C hexagon = plane partitions in an A x B x C box.")
+    hexagon.add_argument("sides", type=int, nargs=3, metavar="SIDE",
+                         help="three side lengths A B C: plane partitions in an A x B x C box")
+    path = shapes.add_parser("path", help="the region inside a boundary path",
+                             description="Lozenge tilings of the region inside a boundary path, e.g. "
+                                         "\"4e 3ne 5nw 4w 3sw 5se\" (steps e, ne, nw, w, sw, se; counts; groups).")
+    source = path.add_mutually_exclusive_group(required=True)
+    source.add_argument("path", nargs="?", help="the boundary path, quoted")
+    source.add_argument("--file", type=Path, help="read the boundary path from this text file")
+    trapezoid = shapes.add_parser("trapezoid", help="a trapezoid with notches in its top row",
+                                  description="A trapezoid widening upwards (BOTTOM e, HEIGHT ne, BOTTOM+HEIGHT w, "
+                                              "HEIGHT se) with HEIGHT down triangles removed from its top row.")
+    trapezoid.add_argument("bottom", type=int, help="length of the bottom side")
+    trapezoid.add_argument("height", type=int, help="number of rows (and of notches)")
+    trapezoid.add_argument("--notches", type=int, nargs="+", default=None,
+                           help="positions 0 .. BOTTOM+HEIGHT-1 of the removed top triangles (default: spread evenly)")
+    for p in (hexagon, path, trapezoid):
+        p.add_argument("--q", type=float, default=1.0,
+                       help="weight per unit cube (q ** volume); 1 is uniform (default)")
+        if sampling:
+            p.add_argument("--seed", type=int, default=None,
+                           help="non-negative int; the same seed gives the same sample (default: fresh, printed)")
+            p.add_argument("--method", default="auto",
+                           help="sampler kernel: auto (default), generic, or box for hexagons; all exact")
+            p.add_argument("--picture", type=Path, default=None, help="write a picture (.png, .svg or .pdf)")
+            p.add_argument("--output", type=Path, default=None,
+                           help="write the sample to a .npz file (heights, tiles, metadata record)")
 
 
 def _parser() -> argparse.ArgumentParser:
     parser = argparse.ArgumentParser(
         prog="frostline",
         description="Exact samples of random tilings by monotone coupling from the past.",
-        epilog="Examples:\n  frostline sample hexagon 40 40 40 --seed 1 --picture hexagon.png\n"
-               "  frostline sample hexagon 30 30 30 --q 0.93 --picture weighted.svg\n"
-               "  frostline count hexagon 6 6 6\n  frostline demo --folder pictures",
-        formatter_class=argparse.RawDescriptionHelpFormatter,
+        epilog=EXAMPLES, formatter_class=argparse.RawDescriptionHelpFormatter,
     )
     parser.add_argument("--version", action="version", version=f"frostline {__version__}")
     commands = parser.add_subparsers(dest="command", metavar="COMMAND", required=True)
-
     sample = commands.add_parser("sample", help="draw one exact sample of a region",
-                                 description="Draw one exact sample; print its diagnostics; optionally draw it.")
-    shapes = sample.add_subparsers(dest="shape", metavar="SHAPE", required=True)
-    p = _add_hexagon(shapes, "lozenge tilings of the A, B, C hexagon")
-    p.add_argument("--seed", type=int, default=None,
-                   help="non-negative int; the same seed gives the same sample (default: fresh entropy, printed)")
-    p.add_argument("--method", default="auto", choices=["auto", "box", "generic"],
-                   help="sampler kernel; all give the identical sample (default: auto, the fastest)")
-    p.add_argument("--picture", type=Path, default=None,
-                   help="write a picture to this file (.png, .svg or .pdf)")
-
-    count = commands.add_parser("count", help="print the exact number of configurations of a region")
-    _add_hexagon(count.add_subparsers(dest="shape", metavar="SHAPE", required=True),
-                 "plane partitions in the A x B x C box (MacMahon's formula)")
-
+                                 description="Draw one exact sample; print its diagnostics; draw it or save it.")
+    _add_shapes(sample, sampling=True)
+    count = commands.add_parser("count", help="print the exact number of tilings of a region")
+    _add_shapes(count, sampling=False)
+    show = commands.add_parser("show", help="print the record of a saved sample and optionally draw it")
+    show.add_argument("file", type=Path, help="a .npz file written by 'frostline sample ... --output'")
+    show.add_argument("--picture", type=Path, default=None, help="write a picture (.png, .svg or .pdf)")
     demo = commands.add_parser("demo", help="sample the built-in demo and write its pictures",
                                description="Exact uniform and q-weighted samples of a hexagon, with pictures.")
     demo.add_argument("--size", type=int, default=40, help="side length of the regular hexagon (default 40)")
@@ -85,27 +112,55 @@ def _print_info(sample, out=None) -> None:
 
 
 def _region(args):
-    from .lozenge import hexagon
+    from . import lozenge
 
-    return hexagon(*args.sides, q=args.q)
+    if args.shape == "hexagon":
+        return lozenge.hexagon(*args.sides, q=args.q)
+    if args.shape == "trapezoid":
+        return lozenge.trapezoid(args.bottom, args.height, args.notches, q=args.q)
+    text = args.path if args.file is None else args.file.read_text()
+    return lozenge.from_boundary(" ".join(text.split()), q=args.q)
 
 
 def _sample(args) -> int:
+    from .progress import StderrProgress
+
+    progress = StderrProgress("building the region")
     region = _region(args)
+    progress.note("coupling from the past")
     started = time.perf_counter()
-    sample = region.sample(seed=args.seed, method=args.method)
+    sample = region.sample(seed=args.seed, method=args.method, progress=progress)
+    progress.finish()
     print(f"exact sample of {region!r} in {time.perf_counter() - started:.3g} s")
     _print_info(sample)
-    if args.picture is not None:
+    _write(sample, args.picture, getattr(args, "output", None))
+    return 0
+
+
+def _write(sample, picture: Optional[Path], output: Optional[Path]) -> None:
+    if output is not None:
+        from .io import save
+
+        print(f"sample written to {save(sample, output)}")
+    if picture is not None:
         from . import plot
 
-        plot.save(sample, args.picture)
-        print(f"picture written to {args.picture}")
-    return 0
+        plot.save(sample, picture)
+        print(f"picture written to {picture}")
 
 
 def _count(args) -> int:
     print(_region(args).count())
+    return 0
+
+
+def _show(args) -> int:
+    from .io import load
+
+    sample = load(args.file)
+    print(f"{args.file}: {sample.region!r}")
+    _print_info(sample)
+    _write(sample, args.picture, None)
     return 0
 
 
@@ -131,13 +186,13 @@ def _demo(args) -> int:
 def main(argv: Optional[Sequence[str]] = None) -> int:
     """Entry point of the ``frostline`` command; returns the exit status."""
     args = _parser().parse_args(list(argv) if argv is not None else None)
-    handlers = {"sample": _sample, "count": _count, "demo": _demo}
+    handlers = {"sample": _sample, "count": _count, "show": _show, "demo": _demo}
     try:
         return handlers[args.command](args)
     except KeyboardInterrupt:
         print("\nfrostline: interrupted; nothing was written for the unfinished sample", file=sys.stderr)
         return 130
-    except (ValueError, TypeError) as exc:
+    except (ValueError, TypeError, OSError) as exc:
         print(f"frostline: error: {exc}", file=sys.stderr)
         return 2
 

@@ -177,8 +177,12 @@ class Region(abc.ABC):
         """Draw a sample with matplotlib."""
 
     def describe(self) -> Dict[str, Any]:
-        """Plain-data description of the region and its weights."""
+        """Plain-data (JSON-ready) description of the region and its weights."""
         return {"lattice": self.lattice}
+
+    def record_arrays(self) -> Dict[str, np.ndarray]:
+        """Arrays that, with :meth:`describe`, rebuild the region (saved in sample files)."""
+        return {}
 
     # ----- the shared API ------------------------------------------------------
     def sample(self, seed: SeedLike = None, *, method: str = "auto", check_order: bool = False,

@@ -23,6 +23,17 @@ from .hexagon import HexagonRegion, hexagon, is_plane_partition
 from .shapes import from_boundary, hexagon_minus, hexagon_region, polygon, trapezoid
 from .tiles import TILE_CLASSES, lozenge_polygons, plane_points, tiles_of_plane_partition
 
+
+def region_from_record(record: dict, arrays: dict):
+    """Rebuild a region from the record and arrays of a sample file (see frostline.io)."""
+    q = record.get("q", 1.0)
+    if record.get("shape") == "box":
+        return hexagon(*record["sides"], q=q)
+    if "triangles" not in arrays:
+        raise ValueError("the sample file lacks the region's triangles")
+    description = {k: v for k, v in record.items() if k not in ("lattice", "q")}
+    return LozengeRegion(arrays["triangles"], q, description=description)
+
 __all__ = [
     "DIRECTIONS",
     "HexagonRegion",
@@ -40,6 +51,7 @@ __all__ = [
     "macmahon",
     "parse_path",
     "plane_points",
+    "region_from_record",
     "polygon",
     "tiles_of_plane_partition",
     "trapezoid",

@@ -253,6 +253,9 @@ class LozengeRegion(Region):
     def describe(self) -> Dict[str, Any]:
         return {"lattice": self.lattice, **self._description, "q": self.q}
 
+    def record_arrays(self) -> Dict[str, np.ndarray]:
+        return {"triangles": self.triangles}
+
     def count(self) -> int:
         """Number of lozenge tilings: the determinant of the up-down triangle adjacency matrix.
 

@@ -67,7 +67,7 @@ class HexagonRegion(Region):
         return f"HexagonRegion(a={self.a}, b={self.b}, c={self.c}, q={self.q!r})"
 
     def describe(self) -> Dict[str, Any]:
-        return {"lattice": self.lattice, "shape": "hexagon", "sides": [self.a, self.b, self.c], "q": self.q}
+        return {"lattice": self.lattice, "shape": "box", "sides": [self.a, self.b, self.c], "q": self.q}
 
     @property
     def corners(self) -> np.ndarray:

@@ -1,0 +1,89 @@
+"""Samples on disk: one ``.npz`` file per sample, read back by :func:`load`.
+
+The file holds the arrays ``heights`` and ``tiles``, any arrays the region
+needs to be rebuilt (for example ``region_triangles``), and ``metadata``: a
+JSON record with the lattice, the region, its weights, the seed (entropy and
+spawn key), the frostline version and the sampler's diagnostics. Files are
+written to a temporary name and renamed, so an interrupted write never leaves
+a truncated file under the final name.
+"""
+from __future__ import annotations
+
+import json
+import os
+import tempfile
+from pathlib import Path
+from typing import Any, Dict, Union
+
+import numpy as np
+
+from ._version import __version__
+from .region import Sample, SampleInfo
+from .registry import lattice
+from .seeding import SeedRecord
+
+FORMAT = "frostline-sample"
+FORMAT_VERSION = 1
+
+PathLike = Union[str, "os.PathLike[str]"]
+
+
+def metadata(sample: Sample) -> Dict[str, Any]:
+    """The JSON record stored beside a sample's arrays."""
+    region = sample.region.describe()
+    return {
+        "format": FORMAT,
+        "format_version": FORMAT_VERSION,
+        "lattice": sample.region.lattice,
+        "region": region,
+        "weights": {k: v for k, v in region.items() if k in ("q",)},
+        "seed": sample.info.as_dict()["seed"],
+        "frostline_version": __version__,
+        "diagnostics": {k: v for k, v in sample.info.as_dict().items() if k != "seed"},
+    }
+
+
+def save(sample: Sample, path: PathLike) -> Path:
+    """Write ``sample`` to ``path`` (a ``.npz`` file); returns the path written."""
+    path = Path(path)
+    if path.suffix != ".npz":
+        raise ValueError(f"sample files end in .npz, got {path.name!r}")
+    arrays = {"heights": np.asarray(sample.heights), "tiles": np.asarray(sample.tiles)}
+    for name, value in sample.region.record_arrays().items():
+        arrays[f"region_{name}"] = np.asarray(value)
+    record = json.dumps(metadata(sample))
+    folder = path.parent if str(path.parent) else Path(".")
+    fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".tmp", dir=folder)
+    try:
+        with os.fdopen(fd, "wb") as handle:
+            np.savez_compressed(handle, metadata=np.array(record), **arrays)
+        os.replace(tmp, path)
+    except BaseException:
+        if os.path.exists(tmp):
+            os.unlink(tmp)
+        raise
+    return path
+
+
+def load(path: PathLike) -> Sample:
+    """Read a sample written by :func:`save`; the region is rebuilt by its plugin.
+
+    Raises ValueError for a file that is not a frostline sample (or is of a
+    newer format than this version reads).
+    """
+    with np.load(path, allow_pickle=False) as data:
+        if "metadata" not in data:
+            raise ValueError(f"{path} is not a frostline sample file (no metadata record)")
+        record = json.loads(str(data["metadata"]))
+        arrays = {k[len("region_"):]: data[k] for k in data.files if k.startswith("region_")}
+        heights = data["heights"]
+    if record.get("format") != FORMAT or record.get("format_version", 0) > FORMAT_VERSION:
+        raise ValueError(f"{path} holds format {record.get('format')!r} version {record.get('format_version')}, "
+                         f"which frostline {__version__} does not read")
+    plugin = lattice(record["lattice"])
+    region = plugin.region_from_record(record["region"], arrays)
+    diagnostics = dict(record["diagnostics"])
+    diagnostics.pop("version", None)
+    seed = SeedRecord(entropy=int(record["seed"]["entropy"]), spawn_key=tuple(record["seed"]["spawn_key"]))
+    info = SampleInfo(seed=seed, version=record["frostline_version"], **diagnostics)
+    return Sample(region=region, heights=heights, info=info)
