@@ -185,6 +185,11 @@ def test_bad_boundary_paths(path, words):
         fl.lozenge.from_boundary(path)
 
 
+def test_huge_region_is_refused_before_allocating():
+    with pytest.raises(fl.RegionTooLargeError, match="GiB"):
+        fl.lozenge.from_boundary("200000e 200000ne 200000nw 200000w 200000sw 200000se")
+
+
 def test_boundary_path_of_wrong_type():
     with pytest.raises(TypeError, match="boundary path is a str"):
         fl.lozenge.from_boundary(["e", "ne"])
