@@ -5,6 +5,7 @@
 namespace frostline::bindings {
 void register_engine(py::module_& m);
 void register_lozenge(py::module_& m);
+void register_domino(py::module_& m);
 }  // namespace frostline::bindings
 
 PYBIND11_MODULE(_core, m) {
@@ -13,4 +14,5 @@ PYBIND11_MODULE(_core, m) {
     register_exception_translators();
     register_engine(m);
     register_lozenge(m);
+    register_domino(m);
 }

@@ -25,7 +25,7 @@ struct random_key {
 };
 
 // Stream numbers separate independent uses of one key.
-enum class stream : std::uint64_t { coupling_from_the_past = 1, forward_chain = 2 };
+enum class stream : std::uint64_t { coupling_from_the_past = 1, forward_chain = 2, domino_shuffling = 3 };
 
 // The per-sweep base: a hash of (key, stream, time). Sites of that sweep then
 // read the SplitMix64 sequence started at this base, at position site + 1.

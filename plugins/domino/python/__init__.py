@@ -1,0 +1,1 @@
+"""Domino tilings of the square grid (built-in plugin ``domino``)."""

@@ -1,0 +1,2 @@
+// Domino shuffling for the (weighted) Aztec diamond: to be written.
+#pragma once
