@@ -32,28 +32,34 @@ std::pair<std::int64_t, std::int64_t> height_range(const int_array& least, const
 
 py::tuple sample(std::shared_ptr<height_model> model, const int_array& least, const int_array& greatest,
                  double q, std::uint64_t word0, std::uint64_t word1, bool check_order,
-                 std::int64_t max_start_time, py::object progress) {
+                 std::int64_t max_start_time, py::object progress, py::object thresholds) {
     if (least.size() != model->n_nodes() || greatest.size() != model->n_nodes())
         throw invalid_model("least and greatest states need one height per node");
     const auto [min_h, max_h] = height_range(least, greatest);
     auto top = to_vector(greatest), bottom = to_vector(least);
     const auto control = make_control(progress, max_start_time, check_order);
     run_report report;
-    auto result = with_rule(q, model->step(), min_h, max_h, [&](auto rule) {
+    auto result = with_rule_or_thresholds(thresholds, model->n_sites(), q, model->step(), min_h, max_h, [&](auto rule) {
         generic_sweeper<decltype(rule)> sweeper(*model, rule, make_key(word0, word1), stream::coupling_from_the_past);
-        // Why release the GIL: one exact sample can take hours; other Python
-        // threads (and other samples) run meanwhile. The hook re-takes it.
-        py::gil_scoped_release free;
-        return monotone_cftp(sweeper, top, bottom, control, report);
+        std::vector<std::int32_t> out;
+        {
+            // Why release the GIL: one exact sample can take hours; other Python
+            // threads (and other samples) run meanwhile. The hook re-takes it.
+            py::gil_scoped_release free;
+            out = monotone_cftp(sweeper, top, bottom, control, report);
+        }
+        check_rule_fit(sweeper.rule());
+        return out;
     });
     return py::make_tuple(to_array(result), report_dict(report));
 }
 
 std::shared_ptr<forward_chain> make_chain(std::shared_ptr<height_model> model, const int_array& start,
                                           std::int64_t min_height, std::int64_t max_height, double q,
-                                          std::uint64_t word0, std::uint64_t word1, std::int64_t time) {
+                                          std::uint64_t word0, std::uint64_t word1, std::int64_t time,
+                                          py::object thresholds) {
     if (start.size() != model->n_nodes()) throw invalid_model("the start state needs one height per node");
-    return with_rule(q, model->step(), min_height, max_height, [&](auto rule) {
+    return with_rule_or_thresholds(thresholds, model->n_sites(), q, model->step(), min_height, max_height, [&](auto rule) {
         generic_sweeper<decltype(rule)> sweeper(*model, rule, make_key(word0, word1), stream::forward_chain);
         // The lambda keeps the model alive as long as the chain.
         auto sweep = [model, sweeper](std::int32_t* h, std::int64_t t) { sweeper.sweep(h, t); };
@@ -67,7 +73,7 @@ py::array_t<std::int32_t> heat_bath_draws(std::int32_t lo, std::int32_t hi, std:
     if (lo > hi) throw invalid_model("lo must not exceed hi");
     py::array_t<std::int32_t> out(bits.size());
     with_rule(q, step, min_height, max_height, [&](auto rule) {
-        for (py::ssize_t i = 0; i < bits.size(); ++i) out.mutable_data()[i] = rule.draw(lo, hi, bits.data()[i]);
+        for (py::ssize_t i = 0; i < bits.size(); ++i) out.mutable_data()[i] = rule.draw(lo, hi, bits.data()[i], 0);
         return 0;
     });
     return out;
@@ -97,7 +103,8 @@ void register_engine(py::module_& parent) {
 
     m.def("sample", &sample, py::arg("model"), py::arg("least"), py::arg("greatest"), py::arg("q"),
           py::arg("key0"), py::arg("key1"), py::arg("check_order") = false,
-          py::arg("max_start_time") = std::int64_t(1) << 40, py::arg("progress") = py::none());
+          py::arg("max_start_time") = std::int64_t(1) << 40, py::arg("progress") = py::none(),
+          py::arg("thresholds") = py::none());
 
     py::class_<forward_chain, std::shared_ptr<forward_chain>>(m, "ForwardChain")
         .def("run", [](forward_chain& chain, std::int64_t sweeps, py::object progress) {
@@ -110,7 +117,8 @@ void register_engine(py::module_& parent) {
         .def_property_readonly("time", &forward_chain::time);
 
     m.def("generic_chain", &make_chain, py::arg("model"), py::arg("start"), py::arg("min_height"),
-          py::arg("max_height"), py::arg("q"), py::arg("key0"), py::arg("key1"), py::arg("time") = 0);
+          py::arg("max_height"), py::arg("q"), py::arg("key0"), py::arg("key1"), py::arg("time") = 0,
+          py::arg("thresholds") = py::none());
 
     m.def("heat_bath_draws", &heat_bath_draws, py::arg("lo"), py::arg("hi"), py::arg("step"), py::arg("q"),
           py::arg("min_height"), py::arg("max_height"), py::arg("bits"),

@@ -1,12 +1,80 @@
-// Bindings of the domino plugin: registers `_core.domino`.
+// Bindings of the domino plugin: registers `_core.domino` (corner-grid kernel, shuffling).
+#include <memory>
+
 #include "frostline/bindings/support.hpp"
+
+#include "corner_kernel.hpp"
 
 namespace frostline::bindings {
 
 void register_domino_shuffling(py::module_& m);
 
+namespace {
+
+using domino::corner_layout;
+using domino::corner_run;
+using domino::corner_sweeper;
+
+std::shared_ptr<corner_layout> make_layout(std::int32_t rows, std::int32_t columns, const int_array& runs) {
+    if (runs.ndim() != 2 || runs.shape(1) != 3)
+        throw invalid_model("runs must be an int array of shape (k, 3): (row, first column, last column)");
+    std::vector<corner_run> list;
+    auto r = runs.unchecked<2>();
+    for (py::ssize_t k = 0; k < runs.shape(0); ++k) list.push_back({r(k, 0), r(k, 1), r(k, 2), 0});
+    return std::make_shared<corner_layout>(rows, columns, std::move(list));
+}
+
+void check_state(const corner_layout& layout, const int_array& a, const char* what) {
+    if (a.size() != layout.size())
+        throw invalid_model(std::string(what) + " must hold one height per corner");
+}
+
+py::tuple corner_sample(std::shared_ptr<corner_layout> layout, const int_array& least, const int_array& greatest,
+                        py::object thresholds, std::uint64_t word0, std::uint64_t word1, bool check_order,
+                        std::int64_t max_start_time, py::object progress) {
+    check_state(*layout, least, "least");
+    check_state(*layout, greatest, "greatest");
+    const auto top = to_vector(greatest), bottom = to_vector(least);
+    const auto control = make_control(progress, max_start_time, check_order);
+    run_report report;
+    auto result = with_rule_or_thresholds(thresholds, layout->n_sites(), 1.0, 4, 0, 0, [&](auto rule) {
+        corner_sweeper<decltype(rule)> sweeper(*layout, rule, make_key(word0, word1), stream::coupling_from_the_past);
+        std::vector<std::int32_t> out;
+        {
+            py::gil_scoped_release free;  // long exact runs; the hook re-takes the GIL for Ctrl-C
+            out = monotone_cftp(sweeper, top, bottom, control, report);
+        }
+        check_rule_fit(sweeper.rule());
+        return out;
+    });
+    return py::make_tuple(to_array(result), report_dict(report));
+}
+
+std::shared_ptr<forward_chain> corner_chain(std::shared_ptr<corner_layout> layout, const int_array& start,
+                                            py::object thresholds, std::uint64_t word0, std::uint64_t word1,
+                                            std::int64_t time) {
+    check_state(*layout, start, "start");
+    return with_rule_or_thresholds(thresholds, layout->n_sites(), 1.0, 4, 0, 0, [&](auto rule) {
+        corner_sweeper<decltype(rule)> sweeper(*layout, rule, make_key(word0, word1), stream::forward_chain);
+        // the lambda owns the layout, so the chain may outlive the caller's handle
+        auto sweep = [layout, sweeper](std::int32_t* h, std::int64_t t) { sweeper.sweep(h, t); };
+        return std::make_shared<forward_chain>(sweep, layout->n_sites(), to_vector(start), time);
+    });
+}
+
+}  // namespace
+
 void register_domino(py::module_& parent) {
     auto m = parent.def_submodule("domino", "Kernels of the domino plugin.");
+    py::class_<corner_layout, std::shared_ptr<corner_layout>>(m, "CornerLayout")
+        .def(py::init(&make_layout), py::arg("rows"), py::arg("columns"), py::arg("runs"))
+        .def_property_readonly("n_sites", &corner_layout::n_sites);
+    m.def("corner_sample", &corner_sample, py::arg("layout"), py::arg("least"), py::arg("greatest"),
+          py::arg("thresholds"), py::arg("key0"), py::arg("key1"), py::arg("check_order") = false,
+          py::arg("max_start_time") = std::int64_t(1) << 40, py::arg("progress") = py::none(),
+          "Exact domino heights on the corner grid by CFTP with the fast kernel: (heights, report).");
+    m.def("corner_chain", &corner_chain, py::arg("layout"), py::arg("start"), py::arg("thresholds"),
+          py::arg("key0"), py::arg("key1"), py::arg("time") = 0);
     register_domino_shuffling(m);
 }
 

@@ -109,16 +109,25 @@ class HeightModel:
         check_order: bool = False,
         max_start_time: int = _NO_LIMIT,
         progress: ProgressHook = None,
+        thresholds: Optional[np.ndarray] = None,
     ) -> Tuple[np.ndarray, dict]:
-        """One exact sample (heights over all nodes) and the engine's report."""
+        """One exact sample (heights over all nodes) and the engine's report.
+
+        ``thresholds`` (uint64, one per site) selects the two-point rule: a site
+        with two allowed heights takes the higher one with probability
+        threshold / 2^64 (used for edge-weighted dimer models; q must be 1).
+        """
         least, greatest = self.extremes()
         return _core.engine.sample(
-            self._compiled, least, greatest, float(q), key[0], key[1], check_order, max_start_time, progress
+            self._compiled, least, greatest, float(q), key[0], key[1], check_order, max_start_time, progress,
+            thresholds,
         )
 
-    def chain(self, q: float, key: Tuple[int, int], start: np.ndarray, time: int = 0):
+    def chain(self, q: float, key: Tuple[int, int], start: np.ndarray, time: int = 0,
+              thresholds: Optional[np.ndarray] = None):
         """A compiled forward chain from ``start`` (heights over all nodes)."""
         low, high = self._height_range()
         return _core.engine.generic_chain(
-            self._compiled, np.ascontiguousarray(start, dtype=np.int32), low, high, float(q), key[0], key[1], time
+            self._compiled, np.ascontiguousarray(start, dtype=np.int32), low, high, float(q), key[0], key[1], time,
+            thresholds,
         )

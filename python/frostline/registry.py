@@ -15,7 +15,7 @@ from typing import Dict, List
 GROUP = "frostline.lattices"
 
 #: the built-in plugins, compiled into frostline._core
-BUILTIN: Dict[str, str] = {"lozenge": "frostline.lozenge"}
+BUILTIN: Dict[str, str] = {"domino": "frostline.domino", "lozenge": "frostline.lozenge"}
 
 _loaded: Dict[str, ModuleType] = {}
 

@@ -26,15 +26,28 @@ inline std::int64_t floor_div(std::int64_t x, std::int64_t m) {
 // Uniform law on the allowed values. k = floor(u32 * n / 2^32) is exact
 // integer arithmetic; it is non-decreasing in n, and lo + step * k is
 // non-decreasing in lo (raising lo by step lowers n by 1 and k by at most 1).
-struct uniform_rule {
-    std::int32_t step = 1;
-
-    std::int32_t draw(std::int32_t lo, std::int32_t hi, std::uint64_t bits) const {
-        // The step-1 branch avoids an integer division in the hot loop.
-        const std::uint64_t count = static_cast<std::uint64_t>(step == 1 ? hi - lo : (hi - lo) / step) + 1;
-        const std::uint64_t k = ((bits >> 32) * count) >> 32;
-        return lo + static_cast<std::int32_t>(k) * step;
+class uniform_rule {
+public:
+    explicit uniform_rule(std::int32_t step = 1) : step_(step), shift_(-1) {
+        if (step <= 0) throw invalid_model("step must be positive");
+        for (int s = 0; s < 31; ++s)
+            if (step == (1 << s)) shift_ = s;
     }
+
+    std::int32_t draw(std::int32_t lo, std::int32_t hi, std::uint64_t bits, std::uint64_t /*site*/) const {
+        // Steps that are powers of two (1 for boxes, 4 for dominoes) avoid an
+        // integer division in the hot loop.
+        const std::int32_t gap = shift_ >= 0 ? (hi - lo) >> shift_ : (hi - lo) / step_;
+        const std::uint64_t count = static_cast<std::uint64_t>(gap) + 1;
+        const std::uint64_t k = ((bits >> 32) * count) >> 32;
+        return lo + static_cast<std::int32_t>(k) * step_;
+    }
+
+    std::int64_t wide_intervals() const { return 0; }
+
+private:
+    std::int32_t step_;
+    int shift_;
 };
 
 // Law proportional to q^(h / step): one factor q per step of the height
@@ -75,12 +88,13 @@ public:
                 "choose q closer to 1 or a smaller region");
     }
 
-    std::int32_t draw(std::int32_t lo, std::int32_t hi, std::uint64_t bits) const {
+    std::int32_t draw(std::int32_t lo, std::int32_t hi, std::uint64_t bits, std::uint64_t /*site*/) const {
         if (negate_) return -draw_decreasing(-hi, -lo, bits);
         return draw_decreasing(lo, hi, bits);
     }
 
     std::size_t table_size() const { return powers_.size(); }
+    std::int64_t wide_intervals() const { return 0; }
 
 private:
     std::int32_t draw_decreasing(std::int32_t lo, std::int32_t hi, std::uint64_t bits) const {
@@ -103,6 +117,36 @@ private:
     bool negate_ = false;
     std::int64_t origin_ = 0;
     std::vector<double> powers_;
+};
+
+// Two-point heat bath with a probability per site: the higher of two allowed
+// values is taken when bits < threshold[site], i.e. with probability
+// threshold / 2^64 (thresholds are computed exactly by the plugin, e.g. from
+// domino edge weights). Monotone: the choice depends on the site only, and a
+// forced value (lo == hi) never breaks the order. It is meant for models where
+// a site never has more than two allowed values (Thurston heights of dimer
+// models); a wider interval is counted in wide_intervals() and the caller
+// must refuse the result.
+class flip_rule {
+public:
+    flip_rule(std::vector<std::uint64_t> threshold, std::int32_t step)
+        : threshold_(std::move(threshold)), step_(step) {
+        if (step <= 0) throw invalid_model("step must be positive");
+    }
+
+    std::int32_t draw(std::int32_t lo, std::int32_t hi, std::uint64_t bits, std::uint64_t site) const {
+        if (lo == hi) return lo;
+        if (hi - lo != step_) ++wide_;
+        return bits < threshold_[site] ? lo + step_ : lo;
+    }
+
+    std::int64_t wide_intervals() const { return wide_; }
+    std::size_t size() const { return threshold_.size(); }
+
+private:
+    std::vector<std::uint64_t> threshold_;
+    std::int32_t step_;
+    mutable std::int64_t wide_ = 0;  // one rule object per run; not shared between threads
 };
 
 // Round lo up and hi down into the residue class of `residue` modulo step.

@@ -22,12 +22,13 @@ public:
         : model_(model), rule_(rule), key_(key), stream_(s) {}
 
     std::int64_t n_sites() const { return model_.n_sites(); }
+    const Rule& rule() const { return rule_; }
 
     void sweep(std::int32_t* height, std::int64_t time) const {
         const std::uint64_t base = sweep_base(key_, stream_, time);
         for_each_site([&](std::int32_t v) {
             auto [lo, hi] = bounds(height, v);
-            height[v] = rule_.draw(lo, hi, site_bits(base, static_cast<std::uint64_t>(v)));
+            height[v] = rule_.draw(lo, hi, site_bits(base, static_cast<std::uint64_t>(v)), v);
         });
     }
 
@@ -38,8 +39,8 @@ public:
             const std::uint64_t bits = site_bits(base, static_cast<std::uint64_t>(v));
             auto [lo_t, hi_t] = bounds(top, v);
             auto [lo_b, hi_b] = bounds(bottom, v);
-            top[v] = rule_.draw(lo_t, hi_t, bits);
-            bottom[v] = rule_.draw(lo_b, hi_b, bits);
+            top[v] = rule_.draw(lo_t, hi_t, bits, v);
+            bottom[v] = rule_.draw(lo_b, hi_b, bits, v);
         });
     }
 

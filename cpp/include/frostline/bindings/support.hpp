@@ -63,8 +63,31 @@ inline py::dict report_dict(const run_report& r) {
 // happens once per call, never per site.
 template <class Body>
 auto with_rule(double q, std::int32_t step, std::int64_t min_height, std::int64_t max_height, Body&& body) {
-    if (q == 1.0) return body(uniform_rule{step});
+    if (q == 1.0) return body(uniform_rule(step));
     return body(geometric_rule(q, step, min_height, max_height));
+}
+
+// Calls body(rule) with the two-point rule when per-site thresholds are given
+// (one uint64 per site), else with the q rule of with_rule.
+template <class Body>
+auto with_rule_or_thresholds(const py::object& thresholds, std::int64_t n_sites, double q, std::int32_t step,
+                             std::int64_t min_height, std::int64_t max_height, Body&& body) {
+    if (thresholds.is_none()) return with_rule(q, step, min_height, max_height, body);
+    auto t = thresholds.cast<py::array_t<std::uint64_t, py::array::c_style | py::array::forcecast>>();
+    if (t.size() != n_sites)
+        throw invalid_model("need one threshold per site: got " + std::to_string(t.size()) + " for " +
+                            std::to_string(n_sites) + " sites");
+    if (q != 1.0) throw invalid_model("per-site thresholds and a q weight cannot be combined");
+    return body(flip_rule(std::vector<std::uint64_t>(t.data(), t.data() + t.size()), step));
+}
+
+// Refuses a result when a two-point rule met a wider interval.
+template <class Rule>
+void check_rule_fit(const Rule& rule) {
+    if (rule.wide_intervals() > 0)
+        throw invalid_model("the two-point (flip) rule met " + std::to_string(rule.wide_intervals()) +
+                            " site updates with more than two allowed heights; it only suits models whose sites "
+                            "have at most two allowed values");
 }
 
 // Maps engine exceptions to Python types. Registered once by the core module.

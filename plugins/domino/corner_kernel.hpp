@@ -1,0 +1,120 @@
+// Fast kernel for domino heights on the corner grid of any mask.
+//
+// Heights sit in the (R + 1) x (C + 1) corner array, row-major. The free
+// corners (all four cells around them in the region) are listed as runs
+// (row, first column, last column); boundary corners keep their fixed heights.
+// Thurston's orientation makes the bounds depend only on the corner's parity:
+//   r + c odd:  lo = max(left, right) - 1 and max(up, down) - 3, hi = min(left, right) + 3 and min(up, down) + 1;
+//   r + c even: the horizontal and vertical offsets swap.
+// Colour class (r + c) % 2, class 0 first; site id = rank of the corner among
+// free corners in row-major order. The generic lowering uses the same classes
+// and ids, so both paths return the identical sample for the same key.
+#pragma once
+#include <algorithm>
+#include <cstdint>
+#include <vector>
+
+#include "frostline/errors.hpp"
+#include "frostline/random.hpp"
+
+namespace frostline::domino {
+
+struct corner_run {
+    std::int32_t row;
+    std::int32_t first;  // columns first..last (inclusive) are free corners
+    std::int32_t last;
+    std::int64_t first_site;
+};
+
+class corner_layout {
+public:
+    corner_layout(std::int32_t rows, std::int32_t columns, std::vector<corner_run> runs)
+        : rows_(rows), columns_(columns), runs_(std::move(runs)) {
+        std::int64_t site = 0;
+        for (auto& run : runs_) {
+            if (run.row <= 0 || run.row >= rows_ || run.first <= 0 || run.last >= columns_ || run.first > run.last)
+                throw invalid_model("a run of free corners must lie strictly inside the corner grid");
+            run.first_site = site;
+            site += run.last - run.first + 1;
+        }
+        n_sites_ = site;
+    }
+
+    std::int64_t width() const { return columns_ + 1; }
+    std::int64_t size() const { return static_cast<std::int64_t>(rows_ + 1) * width(); }
+    std::int64_t n_sites() const { return n_sites_; }
+    const std::vector<corner_run>& runs() const { return runs_; }
+
+private:
+    std::int32_t rows_, columns_;  // of cells
+    std::vector<corner_run> runs_;
+    std::int64_t n_sites_ = 0;
+};
+
+template <class Rule>
+class corner_sweeper {
+public:
+    corner_sweeper(const corner_layout& layout, Rule rule, random_key key, stream s)
+        : layout_(layout), rule_(std::move(rule)), key_(key), stream_(s) {}
+
+    std::int64_t n_sites() const { return layout_.n_sites(); }
+    const Rule& rule() const { return rule_; }
+
+    void sweep(std::int32_t* h, std::int64_t time) const {
+        const std::uint64_t base = sweep_base(key_, stream_, time);
+        for (std::int32_t parity = 0; parity < 2; ++parity)
+            for (const auto& run : layout_.runs())
+                visit_run(run, parity, [&](std::int64_t at, std::uint64_t site, std::int32_t horizontal_down,
+                                           std::int32_t vertical_down) {
+                    auto [lo, hi] = bounds(h, at, horizontal_down, vertical_down);
+                    h[at] = rule_.draw(lo, hi, site_bits(base, site), site);
+                });
+    }
+
+    // Both CFTP chains in one pass, each site's bits computed once.
+    void sweep_pair(std::int32_t* top, std::int32_t* bottom, std::int64_t time) const {
+        const std::uint64_t base = sweep_base(key_, stream_, time);
+        for (std::int32_t parity = 0; parity < 2; ++parity)
+            for (const auto& run : layout_.runs())
+                visit_run(run, parity, [&](std::int64_t at, std::uint64_t site, std::int32_t horizontal_down,
+                                           std::int32_t vertical_down) {
+                    const std::uint64_t bits = site_bits(base, site);
+                    auto [lo_t, hi_t] = bounds(top, at, horizontal_down, vertical_down);
+                    auto [lo_b, hi_b] = bounds(bottom, at, horizontal_down, vertical_down);
+                    top[at] = rule_.draw(lo_t, hi_t, bits, site);
+                    bottom[at] = rule_.draw(lo_b, hi_b, bits, site);
+                });
+    }
+
+private:
+    // Calls visit(index, site, horizontal offset below, vertical offset below)
+    // for the corners of one parity in a run.
+    template <class Visit>
+    void visit_run(const corner_run& run, std::int32_t parity, Visit&& visit) const {
+        const std::int32_t first = run.first + ((run.row + run.first + parity) & 1);
+        const bool odd = ((run.row + first) & 1) != 0;
+        const std::int32_t horizontal_down = odd ? 1 : 3;  // h >= neighbour - this (left/right)
+        const std::int32_t vertical_down = odd ? 3 : 1;    // h >= neighbour - this (up/down)
+        const std::int64_t row_start = static_cast<std::int64_t>(run.row) * layout_.width();
+        for (std::int32_t c = first; c <= run.last; c += 2)
+            visit(row_start + c, static_cast<std::uint64_t>(run.first_site + (c - run.first)), horizontal_down,
+                  vertical_down);
+    }
+
+    std::pair<std::int32_t, std::int32_t> bounds(const std::int32_t* h, std::int64_t at, std::int32_t horizontal_down,
+                                                 std::int32_t vertical_down) const {
+        const std::int64_t w = layout_.width();
+        const std::int32_t left = h[at - 1], right = h[at + 1], up = h[at - w], down = h[at + w];
+        const std::int32_t lo = std::max(std::max(left, right) - horizontal_down, std::max(up, down) - vertical_down);
+        const std::int32_t hi =
+            std::min(std::min(left, right) + (4 - horizontal_down), std::min(up, down) + (4 - vertical_down));
+        return {lo, hi};
+    }
+
+    const corner_layout& layout_;
+    Rule rule_;
+    random_key key_;
+    stream stream_;
+};
+
+}  // namespace frostline::domino

@@ -1,0 +1,329 @@
+"""Domino tilings of a region of the square grid (a boolean mask of cells).
+
+Heights (``Sample.heights``) are Thurston's heights on the (R + 1) x (C + 1)
+grid of cell corners (see :mod:`.geometry`); corners outside the region hold 0
+and ``region.corner_mask`` marks those inside. Tiles (``Sample.tiles``) are an
+int array of shape (k, 2, 2): each domino as its two cells [(r1, c1), (r2, c2)],
+the top or left cell first, rows sorted.
+
+Tile classes: ``north`` and ``south`` are horizontal dominoes, ``east`` and
+``west`` vertical ones, told apart by the colour of their first cell relative
+to ``class_offset``: north = horizontal with r1 + c1 + offset even, south =
+odd; west = vertical with r1 + c1 + offset even, east = odd. For the Aztec
+diamond of order n the offset is n - 1, which names each class after the
+corner where it freezes (north at the top, and so on).
+"""
+from __future__ import annotations
+
+import numbers
+from typing import Any, Callable, Dict, Optional, Tuple
+
+import numpy as np
+
+from frostline import _core
+from frostline._limits import check_memory
+from frostline.height_walk import integrate, pieces, refuse_holes, walk_boundary
+from frostline.model import HeightModel, ProgressHook
+from frostline.region import Region, Sample, StartLike
+
+from .geometry import SquareGeometry
+from .weights import Weights, check_weights, flip_thresholds
+
+TILE_CLASSES = ("north", "south", "east", "west")
+METHODS = ("auto", "cftp", "generic", "shuffling")
+
+
+def as_mask(mask: Any) -> np.ndarray:
+    m = np.asarray(mask)
+    if m.ndim != 2:
+        raise ValueError(f"a mask is a 2-D boolean array (True = cell in the region), got shape {m.shape}")
+    if m.dtype != bool:
+        if np.issubdtype(m.dtype, np.integer) and np.isin(m, (0, 1)).all():
+            m = m.astype(bool)
+        else:
+            raise TypeError(f"a mask must be boolean (or 0/1 integers), got dtype {m.dtype}")
+    if not m.any():
+        raise ValueError("the mask is empty: mark at least two cells True")
+    return m
+
+
+class DominoRegion(Region):
+    """Domino tilings of a mask of cells, optionally with a weight per domino position."""
+
+    lattice = "domino"
+    tile_classes = TILE_CLASSES
+
+    def __init__(self, mask: Any, horizontal: Any = None, vertical: Any = None, *, class_offset: int = 0,
+                 description: Optional[Dict[str, Any]] = None) -> None:
+        self.mask = as_mask(mask)
+        R, C = self.mask.shape
+        check_memory(200 * (R + 1) * (C + 1), f"a {R}x{C} mask")
+        self.weights: Optional[Weights] = check_weights(horizontal, vertical, (R, C))
+        if isinstance(class_offset, bool) or not isinstance(class_offset, numbers.Integral):
+            raise TypeError("class_offset must be an int")
+        self.class_offset = int(class_offset) % 2
+        self._description = description or {"shape": "mask"}
+        r, c = np.nonzero(self.mask)
+        black = int(((r + c) % 2 == 0).sum())
+        white = len(r) - black
+        if len(r) % 2:
+            raise ValueError(f"the region cannot be tiled: it has {len(r)} cells, an odd number")
+        if black != white:
+            raise ValueError(f"the region cannot be tiled: it has {black} black and {white} white cells "
+                             "(cell (r, c) is black when r + c is even), and every domino covers one of each")
+        self.geometry = SquareGeometry(self.mask)
+        self._build()
+
+    def _build(self) -> None:
+        g = self.geometry
+        R, C = g.shape
+        width = C + 1
+        families = (g.horizontal, g.vertical)
+        tails = np.concatenate([f.tail[f.outer] for f in families])
+        heads = np.concatenate([f.head[f.outer] for f in families])
+        corners = np.arange((R + 1) * width)
+        order = corners[np.lexsort((corners % width, -(corners // width)))]  # bottom row first
+        boundary, component = walk_boundary(tails, heads, 1, order, g.residue, g.corner_name)
+        # pieces of cells (4-neighbour links inside the mask) and the holes test
+        cell_links = [(f.cells[0][f.inner], f.cells[1][f.inner]) for f in families]
+        piece = pieces(R * C, np.concatenate([a for a, _ in cell_links]), np.concatenate([b for _, b in cell_links]))
+        first = np.concatenate([f.cells[0][f.outer] for f in families])
+        second = np.concatenate([f.cells[1][f.outer] for f in families])
+        inside_first = (first >= 0) & self.mask.ravel()[np.maximum(first, 0)]
+        edge_piece = piece[np.where(inside_first, first, second)]
+        edge_component = np.array([component[t] for t in tails.tolist()], dtype=np.int64)
+        representative = {}
+        for point, comp in component.items():
+            representative.setdefault(comp, point)
+        refuse_holes(edge_piece, edge_component, g.corner_name, representative)
+
+        interior = np.flatnonzero(g.corner_interior.ravel())
+        boundary_points = np.array(sorted(boundary), dtype=np.int64)
+        node = np.full((R + 1) * width, -1, dtype=np.int64)
+        node[interior] = np.arange(len(interior))
+        node[boundary_points] = len(interior) + np.arange(len(boundary_points))
+        inner_t = np.concatenate([f.tail[f.inner] for f in families])
+        inner_h = np.concatenate([f.head[f.inner] for f in families])
+        a, b = node[inner_t], node[inner_h]
+        constraints = np.concatenate([np.stack([a, b, np.ones_like(a)], 1), np.stack([b, a, np.full_like(a, 3)], 1)])
+        rc = np.stack(np.divmod(interior, width), axis=1)
+        residues = np.array([g.residue(v) for v in interior.tolist()], dtype=np.int64)
+        names = np.concatenate([interior, boundary_points])
+        self._model = HeightModel(len(interior), np.array([boundary[v] for v in boundary_points.tolist()]),
+                                  constraints, residues, 4, (rc[:, 0] + rc[:, 1]) % 2,
+                                  node_label=lambda k: g.corner_name(names[k]))
+        self._node = node
+        self._interior = interior
+        self._sites_rc = rc
+        self._boundary_points = boundary_points
+        self._inner = (inner_t, inner_h)
+        self.corner_mask = g.corner_in.copy()
+        self._thresholds = flip_thresholds(self.weights, rc) if self.weights is not None else None
+        least, greatest = self._model.extremes()  # decides tileability, naming the place on failure
+        self._least_grid = self._grid(least)
+        self._greatest_grid = self._grid(greatest)
+        runs = []
+        for r in range(1, R):
+            cols = np.flatnonzero(g.corner_interior[r])
+            if cols.size:
+                breaks = np.flatnonzero(np.diff(cols) > 1)
+                starts = np.concatenate([[0], breaks + 1])
+                ends = np.concatenate([breaks, [cols.size - 1]])
+                runs += [(r, cols[s], cols[e]) for s, e in zip(starts, ends)]
+        self._layout = _core.domino.CornerLayout(R, C, np.array(runs, dtype=np.int32).reshape(-1, 3))
+
+    # ----- conversions -------------------------------------------------------------
+    def _grid(self, node_heights: np.ndarray) -> np.ndarray:
+        R, C = self.geometry.shape
+        flat = np.zeros((R + 1) * (C + 1), dtype=np.int32)
+        inside = self._node >= 0
+        flat[inside] = np.asarray(node_heights)[self._node[inside]]
+        return flat.reshape(R + 1, C + 1)
+
+    def _nodes(self, grid: np.ndarray) -> np.ndarray:
+        flat = np.asarray(grid).ravel()
+        out = np.empty(self._model.n_nodes, dtype=np.int64)
+        inside = self._node >= 0
+        out[self._node[inside]] = flat[inside]
+        return out
+
+    def tiles_from_heights(self, heights: np.ndarray) -> np.ndarray:
+        """Dominoes (k, 2, 2) of the tiling with these corner heights (crossed edges fall by 3)."""
+        flat = np.asarray(heights, dtype=np.int64).ravel()
+        g = self.geometry
+        tiles = []
+        for family, vertical_domino in ((g.horizontal, True), (g.vertical, False)):
+            crossed = family.inner & (flat[family.head] - flat[family.tail] == -3)
+            r, c = family.position[0][crossed], family.position[1][crossed]
+            if vertical_domino:   # edge (r, c)-(r, c+1) inside the domino on (r-1, c), (r, c)
+                cells = np.stack([np.stack([r - 1, c], 1), np.stack([r, c], 1)], 1)
+            else:                 # edge (r, c)-(r+1, c) inside the domino on (r, c-1), (r, c)
+                cells = np.stack([np.stack([r, c - 1], 1), np.stack([r, c], 1)], 1)
+            tiles.append(cells)
+        out = np.concatenate(tiles).astype(np.int64)
+        order = np.lexsort((out[:, 1, 1], out[:, 1, 0], out[:, 0, 1], out[:, 0, 0]))
+        return out[order]
+
+    def heights_from_tiles(self, tiles: np.ndarray) -> np.ndarray:
+        """Corner heights of the tiling given as dominoes (k, 2, 2).
+
+        Raises ValueError unless the dominoes are adjacent cell pairs covering
+        every cell of the region exactly once.
+        """
+        t = np.asarray(tiles, dtype=np.int64)
+        if t.ndim != 3 or t.shape[1:] != (2, 2):
+            raise ValueError(f"dominoes must be an array of shape (k, 2, 2), got {t.shape}")
+        t = t.copy()
+        swap = (t[:, 0, 0] > t[:, 1, 0]) | ((t[:, 0, 0] == t[:, 1, 0]) & (t[:, 0, 1] > t[:, 1, 1]))
+        t[swap] = t[swap][:, ::-1]
+        d = t[:, 1] - t[:, 0]
+        if not np.all(((d[:, 0] == 0) & (d[:, 1] == 1)) | ((d[:, 0] == 1) & (d[:, 1] == 0))):
+            raise ValueError("every domino must cover two cells that share a side")
+        R, C = self.geometry.shape
+        cells = t.reshape(-1, 2)
+        if cells.min() < 0 or np.any(cells[:, 0] >= R) or np.any(cells[:, 1] >= C):
+            raise ValueError("a domino lies outside the mask")
+        count = np.zeros((R, C), dtype=np.int64)
+        np.add.at(count, (cells[:, 0], cells[:, 1]), 1)
+        if not np.array_equal(count, self.mask.astype(np.int64)):
+            raise ValueError("the dominoes do not cover every cell of the region exactly once")
+        crossed_h = np.zeros((R + 1, C), bool)
+        crossed_v = np.zeros((R, C + 1), bool)
+        vert = d[:, 0] == 1
+        crossed_h[t[vert, 1, 0], t[vert, 1, 1]] = True            # edge below the top cell
+        crossed_v[t[~vert, 1, 0], t[~vert, 1, 1]] = True          # edge left of the right cell
+        g = self.geometry
+        tails = np.concatenate([g.horizontal.tail[g.horizontal.inner], g.vertical.tail[g.vertical.inner]])
+        heads = np.concatenate([g.horizontal.head[g.horizontal.inner], g.vertical.head[g.vertical.inner]])
+        deltas = np.concatenate([np.where(crossed_h.ravel()[g.horizontal.inner], -3, 1),
+                                 np.where(crossed_v.ravel()[g.vertical.inner], -3, 1)])
+        values = self._least_grid.ravel().astype(np.int64)
+        known = np.zeros_like(values, dtype=bool)
+        known[self._boundary_points] = True
+        h = integrate(values, known, tails, heads, deltas)
+        return np.where(self.corner_mask.ravel(), h, 0).reshape(R + 1, C + 1).astype(np.int32)
+
+    def classify(self, tiles: np.ndarray) -> np.ndarray:
+        """Class of each domino: 0 north, 1 south, 2 east, 3 west (see the module docstring)."""
+        t = np.asarray(tiles).reshape(-1, 2, 2)
+        horizontal = t[:, 0, 0] == t[:, 1, 0]
+        even = (t[:, 0, 0] + t[:, 0, 1] + self.class_offset) % 2 == 0
+        return np.where(horizontal, np.where(even, 0, 1), np.where(even, 3, 2)).astype(np.int8)
+
+    # ----- Region interface --------------------------------------------------------
+    def _check_method(self, method: str) -> str:
+        if method not in METHODS:
+            raise ValueError(f"method must be one of {METHODS}, got {method!r}")
+        if method == "shuffling" and not self.is_aztec_diamond:
+            raise ValueError("domino shuffling samples Aztec diamonds only; use method='cftp' for this region")
+        if method == "auto":
+            return "shuffling" if self.is_aztec_diamond and self._shuffling_available() else "cftp"
+        return method
+
+    @property
+    def is_aztec_diamond(self) -> bool:
+        return self._description.get("shape") == "aztec diamond"
+
+    def _shuffling_available(self) -> bool:
+        return hasattr(_core.domino, "aztec_shuffle")
+
+    def _run_exact(self, key, method, check_order, max_start_time, progress: ProgressHook):
+        method = self._check_method(method)
+        if method == "shuffling":
+            return self._shuffle(key, progress)
+        if method == "generic":
+            heights, report = self._model.sample(1.0, key, check_order=check_order, max_start_time=max_start_time,
+                                                 progress=progress, thresholds=self._thresholds)
+            return self._grid(heights), report, "generic"
+        heights, report = _core.domino.corner_sample(
+            self._layout, self._least_grid.ravel(), self._greatest_grid.ravel(), self._thresholds, key[0], key[1],
+            check_order, max_start_time, progress)
+        return np.asarray(heights, dtype=np.int32).reshape(self._least_grid.shape), report, "corner grid"
+
+    def _shuffle(self, key, progress):
+        import time
+
+        n = self._description["order"]
+        horizontal, vertical = self.weights if self.weights is not None else (None, None)
+        started = time.perf_counter()
+        tiles = _core.domino.aztec_shuffle(n, horizontal, vertical, key[0], key[1], progress)
+        seconds = time.perf_counter() - started
+        heights = self.heights_from_tiles(np.asarray(tiles))
+        report = {"start_time": 0, "coalescence_time": 0, "site_updates": 0, "epochs": n, "seconds": seconds}
+        return heights, report, "shuffling"
+
+    def sample(self, seed=None, *, method: str = "auto", check_order: bool = False, max_start_time: int = 2**40,
+               progress: ProgressHook = None) -> Sample:
+        """One exact sample: ``method`` is "auto" (shuffling for Aztec diamonds, else CFTP),
+        "cftp" (fast corner-grid kernel), "generic" (reference engine; same sample as "cftp") or
+        "shuffling" (Aztec diamonds). See :meth:`frostline.Region.sample` for the other arguments.
+        """
+        out = super().sample(seed, method=method, check_order=check_order, max_start_time=max_start_time,
+                             progress=progress)
+        if out.info.kernel == "shuffling":
+            object.__setattr__(out, "info", _replace_method(out.info, "shuffling"))
+        return out
+
+    def _make_chain(self, key, start: StartLike, method: str) -> Tuple[Any, Callable]:
+        method = self._check_method(method if method != "auto" else "cftp")
+        if isinstance(start, str):
+            if start not in ("min", "max"):
+                raise ValueError(f"start must be 'min', 'max' or a corner height array, got {start!r}")
+            grid = self._least_grid if start == "min" else self._greatest_grid
+        else:
+            grid = np.asarray(start)
+            if grid.shape != self._least_grid.shape:
+                raise ValueError(f"start heights must have shape {self._least_grid.shape}, got {grid.shape}")
+            if not np.issubdtype(grid.dtype, np.integer):
+                raise TypeError(f"start heights must be integers, got dtype {grid.dtype}")
+            if not np.array_equal(self.heights_from_tiles(self.tiles_from_heights(grid)), np.where(self.corner_mask, grid, 0)):
+                raise ValueError("start is not a height function of this region")
+        reshape = self._least_grid.shape
+        if method == "generic":
+            return (self._model.chain(1.0, key, self._nodes(grid), thresholds=self._thresholds), self._grid)
+        compiled = _core.domino.corner_chain(self._layout, np.ascontiguousarray(grid, np.int32).ravel(),
+                                             self._thresholds, key[0], key[1])
+        return compiled, lambda h: np.asarray(h, dtype=np.int32).reshape(reshape)
+
+    @property
+    def model(self) -> HeightModel:
+        return self._model
+
+    @property
+    def n_dominoes(self) -> int:
+        return int(self.mask.sum()) // 2
+
+    def describe(self) -> Dict[str, Any]:
+        d = {"lattice": self.lattice, **self._description, "weighted": self.weights is not None}
+        return d
+
+    def record_arrays(self) -> Dict[str, np.ndarray]:
+        out = {"mask": self.mask}
+        if self.weights is not None:
+            out["horizontal"], out["vertical"] = self.weights
+        return out
+
+    def count(self) -> int:
+        from .counts import count_region
+
+        return count_region(self)
+
+    def partition_function(self) -> Any:
+        from .counts import weighted_partition_function
+
+        return self.count() if self.weights is None else weighted_partition_function(self)
+
+    def draw(self, sample: Sample, ax: Any = None, **style: Any) -> Any:
+        from .drawing import draw_dominoes
+
+        return draw_dominoes(sample.tiles, self.classify(sample.tiles), ax=ax, **style)
+
+    def __repr__(self) -> str:
+        shape = {k: v for k, v in self._description.items()}
+        return f"DominoRegion({shape}, dominoes={self.n_dominoes}, weighted={self.weights is not None})"
+
+
+def _replace_method(info, method):
+    from dataclasses import replace
+
+    return replace(info, method=method)

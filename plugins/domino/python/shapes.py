@@ -1,0 +1,110 @@
+"""Named domino regions and the ways to give a region."""
+from __future__ import annotations
+
+import numbers
+from typing import Any, Optional
+
+import numpy as np
+
+from .region import DominoRegion
+from .weights import biased, two_periodic
+
+FILLED = "#xX@"
+EMPTY = ".- _"
+
+
+def _order(n: Any, name: str) -> int:
+    if isinstance(n, bool) or not isinstance(n, numbers.Integral):
+        raise TypeError(f"{name} must be an int, got {n!r} of type {type(n).__name__}")
+    if n < 1:
+        raise ValueError(f"{name} must be at least 1, got {n}")
+    if n > 2**14:
+        raise ValueError(f"{name} = {n} is beyond what fits in memory")
+    return int(n)
+
+
+def aztec_mask(n: int) -> np.ndarray:
+    """The 2n x 2n mask of cells whose centres (c - n + 1/2, n - r - 1/2) satisfy |x| + |y| <= n."""
+    r, c = np.meshgrid(np.arange(2 * n), np.arange(2 * n), indexing="ij")
+    return np.abs(c - n + 0.5) + np.abs(n - r - 0.5) <= n
+
+
+def aztec_diamond(n: int, *, horizontal: Any = None, vertical: Any = None, vertical_weight: Optional[float] = None,
+                  two_periodic_weights: Optional[tuple] = None) -> DominoRegion:
+    """The Aztec diamond of order n (2n(n+1) cells, 2^(n(n+1)/2) tilings when unweighted).
+
+    Weights (optional, one way at a time): ``horizontal`` / ``vertical``
+    arrays (see :mod:`.weights`); ``vertical_weight=a`` gives every vertical
+    domino weight a; ``two_periodic_weights=(a, b)`` the two-periodic weights.
+    Domino classes are named after the corners where they freeze (north at the top).
+
+    Examples
+    --------
+    >>> import frostline as fl
+    >>> fl.domino.aztec_diamond(3).count()
+    64
+    """
+    n = _order(n, "the order n")
+    given = sum(x is not None for x in (vertical_weight, two_periodic_weights)) + (horizontal is not None or vertical is not None)
+    if given > 1:
+        raise ValueError("give weights one way: arrays, vertical_weight or two_periodic_weights")
+    shape = (2 * n, 2 * n)
+    description = {"shape": "aztec diamond", "order": n}
+    if vertical_weight is not None:
+        horizontal, vertical = biased(shape, vertical_weight)
+        description["vertical_weight"] = float(vertical_weight)
+    elif two_periodic_weights is not None:
+        if len(two_periodic_weights) != 2:
+            raise ValueError("two_periodic_weights is a pair (a, b)")
+        horizontal, vertical = two_periodic(shape, *two_periodic_weights)
+        description["two_periodic_weights"] = [float(v) for v in two_periodic_weights]
+    return DominoRegion(aztec_mask(n), horizontal, vertical, class_offset=(n - 1) % 2, description=description)
+
+
+def rectangle(rows: int, columns: int, *, horizontal: Any = None, vertical: Any = None) -> DominoRegion:
+    """The rows x columns rectangle (counted by the Kasteleyn / Temperley-Fisher product)."""
+    rows, columns = _order(rows, "rows"), _order(columns, "columns")
+    return DominoRegion(np.ones((rows, columns), bool), horizontal, vertical,
+                        description={"shape": "rectangle", "rows": rows, "columns": columns})
+
+
+def from_mask(mask: Any, *, horizontal: Any = None, vertical: Any = None) -> DominoRegion:
+    """Any region given as a 2-D boolean array: ``mask[r, c]`` True = cell (r, c) in the region, row 0 at the top."""
+    return DominoRegion(mask, horizontal, vertical, description={"shape": "mask"})
+
+
+def from_picture(picture: str, **weights: Any) -> DominoRegion:
+    """A region drawn as text: one line per row, ``#`` (or ``x``) a cell, ``.`` (or space) no cell.
+
+    Lines may differ in length (missing cells are empty); blank lines at the
+    start and end are ignored.
+
+    Examples
+    --------
+    >>> import frostline as fl
+    >>> fl.domino.from_picture('''
+    ... .##.
+    ... ####
+    ... .##.
+    ... ''').count()
+    4
+    """
+    if not isinstance(picture, str):
+        raise TypeError(f"a picture is a str of '#' and '.' lines, got {type(picture).__name__}")
+    lines = picture.split("\n")
+    while lines and not lines[0].strip():
+        lines.pop(0)
+    while lines and not lines[-1].strip():
+        lines.pop()
+    if not lines:
+        raise ValueError("the picture is empty: draw cells with '#'")
+    width = max(len(line) for line in lines)
+    mask = np.zeros((len(lines), width), bool)
+    for r, line in enumerate(lines):
+        for c, ch in enumerate(line):
+            if ch in FILLED:
+                mask[r, c] = True
+            elif ch not in EMPTY:
+                raise ValueError(f"unexpected symbol {ch!r} in row {r}, column {c} of the picture; "
+                                 f"use '#' for a cell and '.' for none")
+    return DominoRegion(mask, weights.get("horizontal"), weights.get("vertical"), description={"shape": "picture"})

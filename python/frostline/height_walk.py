@@ -1,0 +1,120 @@
+"""Boundary heights and height integration on any lattice, from edge lists.
+
+Plugins describe their lattice points by integer ids and their edges by
+arrays (tail, head); along an edge the height changes by a known amount.
+These helpers never look at a lattice: they walk graphs.
+"""
+from __future__ import annotations
+
+from collections import deque
+from typing import Callable, Dict, List, Sequence, Tuple
+
+import numpy as np
+
+
+def walk_boundary(tails: np.ndarray, heads: np.ndarray, rise: int, order: Sequence[int],
+                  start_value: Callable[[int], int], name: Callable[[int], str]) -> Tuple[Dict[int, int], Dict[int, int]]:
+    """Heights on boundary points, where every boundary edge rises by ``rise`` from tail to head.
+
+    Each connected component of the boundary graph starts at its first point
+    in ``order`` with ``start_value(point)``. Returns (height of each boundary
+    point, component of each boundary point).
+
+    Raises ValueError naming the point where two walks disagree.
+    """
+    adjacency: Dict[int, List[Tuple[int, int]]] = {}
+    for a, b in zip(np.asarray(tails).tolist(), np.asarray(heads).tolist()):
+        adjacency.setdefault(a, []).append((b, rise))
+        adjacency.setdefault(b, []).append((a, -rise))
+    heights: Dict[int, int] = {}
+    component: Dict[int, int] = {}
+    count = 0
+    for start in order:
+        if start not in adjacency or start in heights:
+            continue
+        heights[start] = start_value(start)
+        component[start] = count
+        queue = deque([start])
+        while queue:
+            v = queue.popleft()
+            for w, delta in adjacency[v]:
+                value = heights[v] + delta
+                if w not in heights:
+                    heights[w] = value
+                    component[w] = count
+                    queue.append(w)
+                elif heights[w] != value:
+                    raise ValueError(
+                        f"the boundary cannot carry a height function: walking it reaches {name(w)} with heights "
+                        f"{heights[w]} and {value}; a piece of the region is unbalanced (its two kinds of cells or "
+                        "triangles differ in number), so it cannot be tiled"
+                    )
+        count += 1
+    return heights, component
+
+
+def refuse_holes(edge_piece: np.ndarray, edge_component: np.ndarray, name: Callable[[int], str],
+                 component_point: Dict[int, int]) -> None:
+    """Raise ValueError if a piece of the region meets more than one boundary component (it has a hole).
+
+    ``edge_piece[k]`` and ``edge_component[k]`` give, for boundary edge k, the
+    piece on its inner side and the boundary component it belongs to;
+    ``component_point`` maps a component to one of its points (for the message).
+    """
+    seen: Dict[int, set] = {}
+    for piece, comp in zip(np.asarray(edge_piece).tolist(), np.asarray(edge_component).tolist()):
+        seen.setdefault(piece, set()).add(comp)
+    for comps in seen.values():
+        if len(comps) > 1:
+            inner = sorted(comps)[1]
+            raise ValueError(
+                f"the region has a hole: the boundary through {name(component_point[inner])} is separate from the "
+                "outer boundary of its piece; frostline samples regions whose pieces are simply connected: fill "
+                "the hole, or split the region along a cut"
+            )
+
+
+def integrate(values: np.ndarray, known: np.ndarray, tails: np.ndarray, heads: np.ndarray,
+              deltas: np.ndarray) -> np.ndarray:
+    """Fill unknown heights from known ones along edges with h[head] - h[tail] = delta.
+
+    ``values`` and ``known`` are flat arrays over points (known values are
+    kept). Raises ValueError if the edges give a point two different heights
+    (the tiling data is inconsistent) or leave a point unreached.
+    """
+    h = np.array(values, dtype=np.int64)
+    k = np.array(known, dtype=bool)
+    tails, heads, deltas = (np.asarray(a, dtype=np.int64) for a in (tails, heads, deltas))
+    involved = np.unique(np.concatenate([tails, heads]))
+    while not k[involved].all():
+        forward = k[tails] & ~k[heads]
+        backward = k[heads] & ~k[tails]
+        if not forward.any() and not backward.any():
+            raise ValueError("some points cannot be reached from the boundary")
+        h[heads[forward]] = h[tails[forward]] + deltas[forward]
+        k[heads[forward]] = True
+        back = backward & ~k[tails]
+        h[tails[back]] = h[heads[back]] - deltas[back]
+        k[tails[back]] = True
+    if np.any(h[heads] - h[tails] != deltas):
+        raise ValueError("the tiles do not give a consistent height function")
+    return h
+
+
+def pieces(n_items: int, links_a: np.ndarray, links_b: np.ndarray) -> np.ndarray:
+    """Connected components (labels 0..k-1) of items joined by links (union-find)."""
+    parent = np.arange(n_items)
+
+    def find(x: int) -> int:
+        while parent[x] != x:
+            parent[x] = parent[parent[x]]
+            x = parent[x]
+        return x
+
+    for a, b in zip(np.asarray(links_a).tolist(), np.asarray(links_b).tolist()):
+        ra, rb = find(a), find(b)
+        if ra != rb:
+            parent[max(ra, rb)] = min(ra, rb)
+    roots = np.array([find(x) for x in range(n_items)])
+    _, labels = np.unique(roots, return_inverse=True)
+    return labels
