@@ -63,52 +63,43 @@ public:
     void sweep(std::int32_t* h, std::int64_t time) const {
         const std::uint64_t base = sweep_base(key_, stream_, time);
         for (std::int32_t parity = 0; parity < 2; ++parity)
-            for (const auto& run : layout_.runs())
-                visit_run(run, parity, [&](std::int64_t at, std::uint64_t site, std::int32_t horizontal_down,
-                                           std::int32_t vertical_down) {
-                    auto [lo, hi] = bounds(h, at, horizontal_down, vertical_down);
-                    h[at] = rule_.draw(lo, hi, site_bits(base, site), site);
-                });
+            for (const auto& run : layout_.runs()) update_run<false>(h, nullptr, run, parity, base);
     }
 
     // Both CFTP chains in one pass, each site's bits computed once.
     void sweep_pair(std::int32_t* top, std::int32_t* bottom, std::int64_t time) const {
         const std::uint64_t base = sweep_base(key_, stream_, time);
         for (std::int32_t parity = 0; parity < 2; ++parity)
-            for (const auto& run : layout_.runs())
-                visit_run(run, parity, [&](std::int64_t at, std::uint64_t site, std::int32_t horizontal_down,
-                                           std::int32_t vertical_down) {
-                    const std::uint64_t bits = site_bits(base, site);
-                    auto [lo_t, hi_t] = bounds(top, at, horizontal_down, vertical_down);
-                    auto [lo_b, hi_b] = bounds(bottom, at, horizontal_down, vertical_down);
-                    top[at] = rule_.draw(lo_t, hi_t, bits, site);
-                    bottom[at] = rule_.draw(lo_b, hi_b, bits, site);
-                });
+            for (const auto& run : layout_.runs()) update_run<true>(top, bottom, run, parity, base);
     }
 
 private:
-    // Calls visit(index, site, horizontal offset below, vertical offset below)
-    // for the corners of one parity in a run.
-    template <class Visit>
-    void visit_run(const corner_run& run, std::int32_t parity, Visit&& visit) const {
+    // Updates the corners of one parity in a run (of one chain, or of two with shared bits).
+    template <bool pair>
+    void update_run(std::int32_t* a, std::int32_t* b, const corner_run& run, std::int32_t parity,
+                    std::uint64_t base) const {
         const std::int32_t first = run.first + ((run.row + run.first + parity) & 1);
         const bool odd = ((run.row + first) & 1) != 0;
-        const std::int32_t horizontal_down = odd ? 1 : 3;  // h >= neighbour - this (left/right)
-        const std::int32_t vertical_down = odd ? 3 : 1;    // h >= neighbour - this (up/down)
-        const std::int64_t row_start = static_cast<std::int64_t>(run.row) * layout_.width();
-        for (std::int32_t c = first; c <= run.last; c += 2)
-            visit(row_start + c, static_cast<std::uint64_t>(run.first_site + (c - run.first)), horizontal_down,
-                  vertical_down);
+        const std::int32_t h_down = odd ? 1 : 3, v_down = odd ? 3 : 1;  // h >= neighbour - down
+        const std::int32_t h_up = 4 - h_down, v_up = 4 - v_down;         // h <= neighbour + up
+        const std::int64_t w = layout_.width();
+        const std::int64_t row_start = static_cast<std::int64_t>(run.row) * w;
+        std::uint64_t site = static_cast<std::uint64_t>(run.first_site + (first - run.first));
+        for (std::int32_t c = first; c <= run.last; c += 2, site += 2) {
+            const std::int64_t at = row_start + c;
+            const std::uint64_t bits = site_bits(base, site);
+            a[at] = draw_at(a, at, w, h_down, v_down, h_up, v_up, bits, site);
+            if constexpr (pair) b[at] = draw_at(b, at, w, h_down, v_down, h_up, v_up, bits, site);
+        }
     }
 
-    std::pair<std::int32_t, std::int32_t> bounds(const std::int32_t* h, std::int64_t at, std::int32_t horizontal_down,
-                                                 std::int32_t vertical_down) const {
-        const std::int64_t w = layout_.width();
+    std::int32_t draw_at(const std::int32_t* h, std::int64_t at, std::int64_t w, std::int32_t h_down,
+                         std::int32_t v_down, std::int32_t h_up, std::int32_t v_up, std::uint64_t bits,
+                         std::uint64_t site) const {
         const std::int32_t left = h[at - 1], right = h[at + 1], up = h[at - w], down = h[at + w];
-        const std::int32_t lo = std::max(std::max(left, right) - horizontal_down, std::max(up, down) - vertical_down);
-        const std::int32_t hi =
-            std::min(std::min(left, right) + (4 - horizontal_down), std::min(up, down) + (4 - vertical_down));
-        return {lo, hi};
+        const std::int32_t lo = std::max(std::max(left, right) - h_down, std::max(up, down) - v_down);
+        const std::int32_t hi = std::min(std::min(left, right) + h_up, std::min(up, down) + v_up);
+        return rule_.draw(lo, hi, bits, site);
     }
 
     const corner_layout& layout_;
