@@ -49,7 +49,6 @@ def test_help_reads_well():
 
 def test_ctrl_c_stops_cleanly():
     # SIGINT to a long run: the engine notices within ~10^8 updates, exit status 130.
-    import os
     import signal
     import time
 

@@ -4,7 +4,7 @@ from collections import Counter
 import numpy as np
 import pytest
 import sympy
-from hypothesis import HealthCheck, assume, given, settings, strategies as st
+from hypothesis import HealthCheck, given, settings, strategies as st
 
 import frostline as fl
 from frostline.lozenge import tiles_of_plane_partition
@@ -207,7 +207,7 @@ def test_region_with_a_hole_is_refused():
 
 
 def test_conflict_is_named_by_lattice_point():
-    with pytest.raises(ValueError, match=r"lattice point \(1, 1\) and lattice point \(2, 1\)"):
+    with pytest.raises(ValueError, match=r"lattice point \(1, 1\) and the lattice point \(2, 1\)"):
         fl.lozenge.from_triangles([(0, 1, 1), (1, 0, 0), (1, 0, 1), (1, 1, 0), (1, 1, 1), (2, 0, 0)])
 
 

@@ -8,8 +8,7 @@ from __future__ import annotations
 
 import abc
 from dataclasses import asdict, dataclass, field
-from functools import cached_property
-from typing import Any, Callable, Dict, Optional, Tuple, Union
+from typing import Any, Callable, Dict, Tuple, Union
 
 import numpy as np
 

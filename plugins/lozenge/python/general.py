@@ -21,11 +21,12 @@ from typing import Any, Callable, Dict, Iterable, Optional, Tuple
 import numpy as np
 
 from frostline._limits import check_memory
+from frostline.height_walk import integrate, refuse_holes, walk_boundary
 from frostline.model import HeightModel, ProgressHook
 from frostline.region import Region, Sample, StartLike
 
 from .drawing import draw_lozenges
-from .geometry import EDGE_ENDS, PARTNER, TriangleGrid, walk_boundary
+from .geometry import EDGE_ENDS, PARTNER, TriangleGrid
 from .hexagon import QLike, _weight
 from .tiles import TILE_CLASSES
 
@@ -63,35 +64,46 @@ class LozengeRegion(Region):
     # ----- construction --------------------------------------------------------
     def _build(self) -> None:
         g = self.grid
+        nx, ny = g.up.shape
         in_region, interior = g.vertex_masks()
-        boundary_heights, components = walk_boundary(g)
-        self._refuse_holes(components)
+        inner, outer = g.edge_masks()
+        boundary_ends = [g.edge_ends(t, outer[t]) for t in range(3)]
+        tails = np.concatenate([g.point_id(fp, fq) for fp, fq, _, _ in boundary_ends])
+        heads = np.concatenate([g.point_id(tp, tq) for _, _, tp, tq in boundary_ends])
+        boundary, component = walk_boundary(tails, heads, 1, g.boundary_order(), g.point_residue, g.point_name)
+        # every boundary edge has one triangle inside: its piece must meet one boundary component
+        piece = g.triangle_pieces()
+        edge_piece = []
+        for t, (dx, dy) in enumerate(PARTNER):
+            p, q = np.nonzero(outer[t])
+            edge_piece.append(np.where(g.up[p, q], piece[p * ny + q], piece[nx * ny + (p + dx) * ny + (q + dy)]))
+        representative: Dict[int, int] = {}
+        for point, comp in component.items():
+            representative.setdefault(comp, point)
+        refuse_holes(np.concatenate(edge_piece), np.array([component[v] for v in tails.tolist()]),
+                     g.point_name, representative)
         # node numbering: free sites first (row-major on the grid), then boundary points
         node = np.full(g.up.shape, -1, dtype=np.int64)
         sites = np.argwhere(interior)
         node[interior] = np.arange(len(sites))
-        boundary_points = sorted(boundary_heights)
-        for k, (p, q) in enumerate(boundary_points):
-            node[p, q] = len(sites) + k
+        boundary_points = np.array(sorted(boundary), dtype=np.int64)
+        node.ravel()[boundary_points] = len(sites) + np.arange(len(boundary_points))
         if np.any(in_region & (node < 0)):
             raise AssertionError("a region point is neither interior nor on the boundary")
-        ox, oy = g.origin
-        inner, _ = g.edge_masks()
         rows = []
         for t in range(3):
             fp, fq, tp, tq = g.edge_ends(t, inner[t])
             a, b = node[fp, fq], node[tp, tq]
             rows.append(np.stack([a, b, np.ones_like(a)], axis=1))       # h[to] - h[from] <= 1
             rows.append(np.stack([b, a, np.full_like(a, 2)], axis=1))    # h[from] - h[to] <= 2
-        constraints = np.concatenate(rows) if rows else np.zeros((0, 3), np.int64)
-        i, j = sites[:, 0] + ox, sites[:, 1] + oy
-        colour = (i - j) % 3
-        labels = [(int(p + ox), int(q + oy)) for p, q in np.concatenate([sites, np.array(boundary_points).reshape(-1, 2)])]
-        self._model = HeightModel(len(sites), np.array([boundary_heights[v] for v in boundary_points]),
-                                  constraints, colour, 3, colour, node_label=lambda k: f"lattice point {labels[k]}")
+        constraints = np.concatenate(rows)
+        ox, oy = g.origin
+        colour = (sites[:, 0] + ox - sites[:, 1] - oy) % 3
+        names = np.concatenate([g.point_id(sites[:, 0], sites[:, 1]), boundary_points])
+        self._model = HeightModel(len(sites), np.array([boundary[v] for v in boundary_points.tolist()]),
+                                  constraints, colour, 3, colour, node_label=lambda k: g.point_name(names[k]))
         self._node = node
-        self._sites = sites
-        self._boundary_points = np.array(boundary_points, dtype=np.int64).reshape(-1, 2)
+        self._boundary_points = boundary_points
         self._inner = inner
         # crop to the bounding box of the region's points
         pts = np.argwhere(in_region)
@@ -99,31 +111,6 @@ class LozengeRegion(Region):
         self.origin = (int(pts[:, 0].min() + ox), int(pts[:, 1].min() + oy))
         self.vertex_mask = in_region[self._crop].copy()
         self._model.extremes()  # decides tileability now, with the error naming the place
-
-    def _refuse_holes(self, components) -> None:
-        labels, n_pieces = self.grid.pieces()
-        component_of = {}
-        for k, members in enumerate(components):
-            for v in members:
-                component_of[v] = k
-        _, outer = self.grid.edge_masks()
-        seen: Dict[int, set] = {}
-        for t in range(3):
-            fp, fq, _, _ = self.grid.edge_ends(t, outer[t])
-            p, q = np.nonzero(outer[t])
-            dx, dy = PARTNER[t]
-            for a, b, pp, qq in zip(fp.tolist(), fq.tolist(), p.tolist(), q.tolist()):
-                piece = labels[0, pp, qq] if self.grid.up[pp, qq] else labels[1, pp + dx, qq + dy]
-                seen.setdefault(int(piece), set()).add(component_of[(a, b)])
-        for piece, comps in seen.items():
-            if len(comps) > 1:
-                inner_comp = sorted(comps)[1]
-                p, q = components[inner_comp][0]
-                raise ValueError(
-                    f"the region has a hole: the boundary through the lattice point ({p + self.grid.origin[0]}, "
-                    f"{q + self.grid.origin[1]}) is separate from the outer boundary of its piece; frostline samples "
-                    "regions whose pieces are simply connected: fill the hole, or split the region along a cut"
-                )
 
     # ----- conversions -----------------------------------------------------------
     def _grid_heights(self, node_heights: np.ndarray) -> np.ndarray:
@@ -182,27 +169,15 @@ class LozengeRegion(Region):
             sel = tiles[tiles[:, 2] == t]
             crossed[t][sel[:, 0] - ox, sel[:, 1] - oy] = True
         # integrate from the boundary along interior edges
-        h = self._grid_heights(self._model.extremes()[0]).astype(np.int64)
-        known = np.zeros(h.shape, bool)
-        known[self._boundary_points[:, 0], self._boundary_points[:, 1]] = True
-        steps = []
-        for t in range(3):
-            fp, fq, tp, tq = self.grid.edge_ends(t, self._inner[t])
-            p, q = np.nonzero(self._inner[t])
-            delta = np.where(crossed[t][p, q], -2, 1)
-            steps.append((fp, fq, tp, tq, delta))
-        while not known[self._sites[:, 0], self._sites[:, 1]].all():
-            progress = False
-            for fp, fq, tp, tq, delta in steps:
-                forward = known[fp, fq] & ~known[tp, tq]
-                h[tp[forward], tq[forward]] = h[fp[forward], fq[forward]] + delta[forward]
-                known[tp[forward], tq[forward]] = True
-                backward = known[tp, tq] & ~known[fp, fq]
-                h[fp[backward], fq[backward]] = h[tp[backward], tq[backward]] - delta[backward]
-                known[fp[backward], fq[backward]] = True
-                progress = progress or forward.any() or backward.any()
-            if not progress:
-                raise AssertionError("interior points unreachable from the boundary")
+        g = self.grid
+        values = self._grid_heights(self._model.extremes()[0]).astype(np.int64).ravel()
+        known = np.zeros(values.shape, bool)
+        known[self._boundary_points] = True
+        ends = [g.edge_ends(t, self._inner[t]) for t in range(3)]
+        deltas = [np.where(crossed[t][self._inner[t]], -2, 1) for t in range(3)]
+        h = integrate(values, known, np.concatenate([g.point_id(fp, fq) for fp, fq, _, _ in ends]),
+                      np.concatenate([g.point_id(tp, tq) for _, _, tp, tq in ends]),
+                      np.concatenate(deltas)).reshape(g.up.shape)
         return np.where(self.vertex_mask, h[self._crop], 0).astype(np.int32)
 
     # ----- Region interface ----------------------------------------------------

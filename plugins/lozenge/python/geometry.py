@@ -14,11 +14,12 @@ Along a directed edge the height rises by 1 when uncrossed and falls by 2 when c
 """
 from __future__ import annotations
 
-from collections import deque
 from dataclasses import dataclass
-from typing import Dict, List, Tuple
+from typing import List, Tuple
 
 import numpy as np
+
+from frostline.height_walk import pieces
 
 MARGIN = 2
 #: partner down triangle of U(x, y) across edge type t: D(x + dx, y + dy)
@@ -96,79 +97,31 @@ class TriangleGrid:
         (fx, fy), (tx, ty) = EDGE_ENDS[t]
         return p + fx, q + fy, p + tx, q + ty
 
-    # ----- pieces and the boundary -------------------------------------------
-    def pieces(self) -> Tuple[np.ndarray, int]:
-        """Label each triangle with its edge-connected piece: (labels of up, labels of down), count.
+    # ----- flat ids for the shared height-walk helpers ------------------------
+    def point_id(self, p: np.ndarray, q: np.ndarray) -> np.ndarray:
+        return np.asarray(p) * self.up.shape[1] + np.asarray(q)
 
-        Returns an int array of shape (2, NX, NY) (-1 outside) and the number of pieces.
-        """
-        labels = np.full((2,) + self.up.shape, -1, dtype=np.int64)
-        count = 0
-        for s, mask in ((0, self.up), (1, self.down)):
-            for p, q in zip(*np.nonzero(mask)):
-                if labels[s, p, q] >= 0:
-                    continue
-                labels[s, p, q] = count
-                queue = deque([(s, p, q)])
-                while queue:
-                    cs, cp, cq = queue.popleft()
-                    for ns, np_, nq in _neighbours(cs, cp, cq):
-                        m = self.up if ns == 0 else self.down
-                        if 0 <= np_ < m.shape[0] and 0 <= nq < m.shape[1] and m[np_, nq] and labels[ns, np_, nq] < 0:
-                            labels[ns, np_, nq] = count
-                            queue.append((ns, np_, nq))
-                count += 1
-        return labels, count
+    def point_name(self, point: int) -> str:
+        p, q = divmod(int(point), self.up.shape[1])
+        return f"the lattice point ({p + self.origin[0]}, {q + self.origin[1]})"
 
+    def point_residue(self, point: int) -> int:
+        p, q = divmod(int(point), self.up.shape[1])
+        return (p + self.origin[0] - q - self.origin[1]) % 3
 
-def _neighbours(s: int, p: int, q: int):
-    """Triangles sharing an edge with U(p, q) (s = 0) or D(p, q) (s = 1)."""
-    if s == 0:
-        return [(1, p + dx, q + dy) for dx, dy in PARTNER]
-    return [(0, p - dx, q - dy) for dx, dy in PARTNER]
+    def boundary_order(self) -> np.ndarray:
+        """Point ids, lowest plane point first (smallest j, then smallest i + j/2)."""
+        p, q = np.meshgrid(np.arange(self.up.shape[0]), np.arange(self.up.shape[1]), indexing="ij")
+        order = np.lexsort(((2 * p + q).ravel(), q.ravel()))
+        return self.point_id(p.ravel()[order], q.ravel()[order])
 
-
-def walk_boundary(grid: TriangleGrid) -> Tuple[Dict[Tuple[int, int], int], List[List[Tuple[int, int]]]]:
-    """Heights on the boundary points, and the boundary's connected components.
-
-    Boundary edges are never crossed, so the height rises by 1 along each of
-    them in its direction. Each component starts at its lowest point (in the
-    plane) with height (i - j) mod 3, the residue every height keeps.
-
-    Raises ValueError naming the point where two walks disagree (the piece has
-    unequal numbers of up and down triangles, or its boundary is not one curve).
-    """
-    _, outer = grid.edge_masks()
-    adjacency: Dict[Tuple[int, int], List[Tuple[Tuple[int, int], int]]] = {}
-    for t in range(3):
-        fp, fq, tp, tq = grid.edge_ends(t, outer[t])
-        for a, b, c, d in zip(fp.tolist(), fq.tolist(), tp.tolist(), tq.tolist()):
-            adjacency.setdefault((a, b), []).append(((c, d), 1))
-            adjacency.setdefault((c, d), []).append(((a, b), -1))
-    ox, oy = grid.origin
-    heights: Dict[Tuple[int, int], int] = {}
-    components: List[List[Tuple[int, int]]] = []
-    # lowest plane point first: smallest j, then smallest i + j/2
-    for start in sorted(adjacency, key=lambda v: (v[1], 2 * v[0] + v[1])):
-        if start in heights:
-            continue
-        i0, j0 = start[0] + ox, start[1] + oy
-        heights[start] = (i0 - j0) % 3
-        members = [start]
-        queue = deque([start])
-        while queue:
-            v = queue.popleft()
-            for w, delta in adjacency[v]:
-                value = heights[v] + delta
-                if w not in heights:
-                    heights[w] = value
-                    members.append(w)
-                    queue.append(w)
-                elif heights[w] != value:
-                    raise ValueError(
-                        f"the boundary cannot carry a height function: walking it reaches the lattice point "
-                        f"({w[0] + ox}, {w[1] + oy}) with heights {heights[w]} and {value}; a piece of the region "
-                        "has unequal numbers of up and down triangles, so it cannot be tiled"
-                    )
-        components.append(members)
-    return heights, components
+    def triangle_pieces(self) -> np.ndarray:
+        """Edge-connected piece of each triangle: ids up p*NY+q, down NX*NY + p*NY+q."""
+        nx, ny = self.up.shape
+        inner, _ = self.edge_masks()
+        a, b = [], []
+        for t, (dx, dy) in enumerate(PARTNER):
+            p, q = np.nonzero(inner[t])
+            a.append(p * ny + q)
+            b.append(nx * ny + (p + dx) * ny + (q + dy))
+        return pieces(2 * nx * ny, np.concatenate(a), np.concatenate(b))
