@@ -59,3 +59,21 @@ def test_ctrl_c_stops_cleanly():
     out, err = proc.communicate(timeout=60)
     assert proc.returncode == 130, err
     assert "interrupted" in err
+
+
+def test_domino_commands(tmp_path, capsys):
+    drawing = tmp_path / "region.txt"
+    drawing.write_text(".##.\n####\n####\n.##.\n")
+    assert main(["count", "picture", str(drawing)]) == 0
+    assert capsys.readouterr().out.strip() == "8"  # the Aztec diamond of order 2 (OEIS A006125)
+    assert main(["count", "aztec", "5"]) == 0
+    assert capsys.readouterr().out.strip() == "32768"  # OEIS A006125
+    assert main(["count", "rectangle", "4", "4"]) == 0
+    assert capsys.readouterr().out.strip() == "36"  # OEIS A004003
+    out = tmp_path / "aztec.npz"
+    assert main(["sample", "aztec", "6", "--vertical-weight", "2", "--method", "cftp", "--seed", "1",
+                 "--output", str(out), "--picture", str(tmp_path / "aztec.png")]) == 0
+    import frostline as fl
+
+    S = fl.load(out)
+    assert S.region.weights is not None and S.tiles.shape == (42, 2, 2)

@@ -26,6 +26,8 @@ EXAMPLES = """examples:
   frostline sample hexagon 30 30 30 --q 0.93 --output weighted.npz
   frostline sample path "2(3e 2ne) 4nw 6w 4sw 4se" --picture staircase.pdf
   frostline sample trapezoid 12 6 --picture trapezoid.png
+  frostline sample aztec 100 --picture aztec.png
+  frostline sample aztec 60 --two-periodic 1 0.5 --method shuffling
   frostline count hexagon 6 6 6
   frostline show weighted.npz --picture weighted.svg
   frostline demo --folder pictures
@@ -56,11 +58,27 @@ def _add_shapes(parent: argparse.ArgumentParser, sampling: bool) -> None:
     for p in (hexagon, path, trapezoid):
         p.add_argument("--q", type=float, default=1.0,
                        help="weight per unit cube (q ** volume); 1 is uniform (default)")
+    aztec = shapes.add_parser("aztec", help="domino tilings of the Aztec diamond of order N",
+                              description="Domino tilings of the Aztec diamond of order N (2N(N+1) cells).")
+    aztec.add_argument("order", type=int, help="the order N")
+    weights = aztec.add_mutually_exclusive_group()
+    weights.add_argument("--vertical-weight", type=float, default=None, help="weight of every vertical domino")
+    weights.add_argument("--two-periodic", type=float, nargs=2, default=None, metavar=("A", "B"),
+                         help="two-periodic weights A and B (gas phase in the middle when A != B)")
+    rectangle = shapes.add_parser("rectangle", help="domino tilings of a ROWS x COLUMNS rectangle")
+    rectangle.add_argument("rows", type=int)
+    rectangle.add_argument("columns", type=int)
+    picture = shapes.add_parser("picture", help="domino tilings of a region drawn in a text file",
+                                description="Domino tilings of a region drawn as text: '#' a cell, '.' none, "
+                                            "one line per row.")
+    picture.add_argument("file", type=Path, help="the text file with the drawing")
+    for p in (hexagon, path, trapezoid, aztec, rectangle, picture):
         if sampling:
             p.add_argument("--seed", type=int, default=None,
                            help="non-negative int; the same seed gives the same sample (default: fresh, printed)")
             p.add_argument("--method", default="auto",
-                           help="sampler kernel: auto (default), generic, or box for hexagons; all exact")
+                           help="exact sampler: auto (default, the fastest), generic (reference engine), "
+                                "box (hexagons), cftp or shuffling (dominoes)")
             p.add_argument("--picture", type=Path, default=None, help="write a picture (.png, .svg or .pdf)")
             p.add_argument("--output", type=Path, default=None,
                            help="write the sample to a .npz file (heights, tiles, metadata record)")
@@ -112,8 +130,15 @@ def _print_info(sample, out=None) -> None:
 
 
 def _region(args):
-    from . import lozenge
+    from . import domino, lozenge
 
+    if args.shape == "aztec":
+        return domino.aztec_diamond(args.order, vertical_weight=args.vertical_weight,
+                                    two_periodic_weights=tuple(args.two_periodic) if args.two_periodic else None)
+    if args.shape == "rectangle":
+        return domino.rectangle(args.rows, args.columns)
+    if args.shape == "picture":
+        return domino.from_picture(args.file.read_text())
     if args.shape == "hexagon":
         return lozenge.hexagon(*args.sides, q=args.q)
     if args.shape == "trapezoid":

@@ -85,9 +85,10 @@ def from_picture(picture: str, **weights: Any) -> DominoRegion:
     >>> fl.domino.from_picture('''
     ... .##.
     ... ####
+    ... ####
     ... .##.
     ... ''').count()
-    4
+    8
     """
     if not isinstance(picture, str):
         raise TypeError(f"a picture is a str of '#' and '.' lines, got {type(picture).__name__}")
