@@ -49,16 +49,27 @@ def test_help_reads_well():
 
 def test_ctrl_c_stops_cleanly():
     # SIGINT to a long run: the engine notices within ~10^8 updates, exit status 130.
+    # The child restores Python's Ctrl-C handler itself (a parent may ignore SIGINT)
+    # and says when it has started, so the signal never races interpreter start-up.
     import signal
-    import time
 
-    proc = subprocess.Popen([sys.executable, "-m", "frostline.cli", "sample", "hexagon", "400", "400", "400",
-                             "--seed", "1"], stdout=subprocess.PIPE, stderr=subprocess.PIPE, text=True)
-    time.sleep(2.0)
-    proc.send_signal(signal.SIGINT)
-    out, err = proc.communicate(timeout=60)
-    assert proc.returncode == 130, err
-    assert "interrupted" in err
+    code = ("import signal, sys; signal.signal(signal.SIGINT, signal.default_int_handler)\n"
+            "from frostline.cli import main\nprint('started', flush=True)\n"
+            "sys.exit(main(['sample', 'hexagon', '400', '400', '400', '--seed', '1']))\n")
+    proc = subprocess.Popen([sys.executable, "-c", code], stdout=subprocess.PIPE, stderr=subprocess.PIPE, text=True)
+    try:
+        assert proc.stdout.readline().strip() == "started"
+        import time
+
+        time.sleep(1.0)
+        proc.send_signal(signal.SIGINT)
+        out, err = proc.communicate(timeout=60)
+        assert proc.returncode == 130, err
+        assert "interrupted" in err
+    finally:
+        if proc.poll() is None:
+            proc.kill()
+            proc.wait()
 
 
 def test_domino_commands(tmp_path, capsys):

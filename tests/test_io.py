@@ -31,7 +31,7 @@ def test_metadata_record(tmp_path):
     with np.load(fl.save(S, tmp_path / "s.npz")) as data:
         record = json.loads(str(data["metadata"]))
     assert record["lattice"] == "lozenge" and record["weights"] == {"q": 0.9}
-    assert record["seed"] == {"entropy": 5, "spawn_key": [2]}
+    assert record["seed"] == {"entropy": 5, "spawn_key": [2], "pool_size": 4}
     assert record["frostline_version"] == fl.__version__
     assert record["diagnostics"]["start_time"] == S.info.start_time
 

@@ -4,6 +4,7 @@
 
 #include "frostline/bindings/support.hpp"
 #include "frostline/height_model.hpp"
+#include "frostline/monotonicity.hpp"
 #include "frostline/sweeps.hpp"
 #include "frostline/thurston.hpp"
 
@@ -32,14 +33,14 @@ std::pair<std::int64_t, std::int64_t> height_range(const int_array& least, const
 
 py::tuple sample(std::shared_ptr<height_model> model, const int_array& least, const int_array& greatest,
                  double q, std::uint64_t word0, std::uint64_t word1, bool check_order,
-                 std::int64_t max_start_time, py::object progress, py::object thresholds) {
+                 std::int64_t max_start_time, py::object progress, py::object rule_spec) {
     if (least.size() != model->n_nodes() || greatest.size() != model->n_nodes())
         throw invalid_model("least and greatest states need one height per node");
     const auto [min_h, max_h] = height_range(least, greatest);
     auto top = to_vector(greatest), bottom = to_vector(least);
     const auto control = make_control(progress, max_start_time, check_order);
     run_report report;
-    auto result = with_rule_or_thresholds(thresholds, model->n_sites(), q, model->step(), min_h, max_h, [&](auto rule) {
+    auto result = with_rule_spec(rule_spec, model->n_sites(), q, model->step(), min_h, max_h, [&](auto rule) {
         generic_sweeper<decltype(rule)> sweeper(*model, rule, make_key(word0, word1), stream::coupling_from_the_past);
         std::vector<std::int32_t> out;
         {
@@ -57,9 +58,11 @@ py::tuple sample(std::shared_ptr<height_model> model, const int_array& least, co
 std::shared_ptr<forward_chain> make_chain(std::shared_ptr<height_model> model, const int_array& start,
                                           std::int64_t min_height, std::int64_t max_height, double q,
                                           std::uint64_t word0, std::uint64_t word1, std::int64_t time,
-                                          py::object thresholds) {
+                                          py::object rule_spec) {
     if (start.size() != model->n_nodes()) throw invalid_model("the start state needs one height per node");
-    return with_rule_or_thresholds(thresholds, model->n_sites(), q, model->step(), min_height, max_height, [&](auto rule) {
+    std::string why;
+    if (!model->is_valid(to_vector(start), why)) throw invalid_model("the start state is not a valid configuration: " + why);
+    return with_rule_spec(rule_spec, model->n_sites(), q, model->step(), min_height, max_height, [&](auto rule) {
         generic_sweeper<decltype(rule)> sweeper(*model, rule, make_key(word0, word1), stream::forward_chain);
         // The lambda keeps the model alive as long as the chain.
         auto sweep = [model, sweeper](std::int32_t* h, std::int64_t t) { sweeper.sweep(h, t); };
@@ -73,9 +76,41 @@ py::array_t<std::int32_t> heat_bath_draws(std::int32_t lo, std::int32_t hi, std:
     if (lo > hi) throw invalid_model("lo must not exceed hi");
     py::array_t<std::int32_t> out(bits.size());
     with_rule(q, step, min_height, max_height, [&](auto rule) {
-        for (py::ssize_t i = 0; i < bits.size(); ++i) out.mutable_data()[i] = rule.draw(lo, hi, bits.data()[i], 0);
+        for (py::ssize_t i = 0; i < bits.size(); ++i) out.mutable_data()[i] = rule.draw(lo, hi, bits.data()[i], 0, nullptr);
         return 0;
     });
+    return out;
+}
+
+py::dict check_monotone(std::shared_ptr<height_model> model, double q, py::object rule_spec,
+                        const py::array_t<std::int32_t, py::array::c_style | py::array::forcecast>& sites,
+                        std::int32_t window,
+                        const py::array_t<std::uint64_t, py::array::c_style | py::array::forcecast>& test_bits) {
+    if (window < 1 || window > 4) throw invalid_model("window must be 1..4 steps");
+    const std::vector<std::uint64_t> bits(test_bits.data(), test_bits.data() + test_bits.size());
+    // heights the check can meet: neighbours within `window` steps, plus the largest constraint bound
+    std::int64_t widest = 0;
+    for (const auto& c : model->constraints()) widest = std::max<std::int64_t>(widest, std::abs(c.bound));
+    const std::int64_t reach = static_cast<std::int64_t>(window + 2) * model->step() + widest;
+    py::dict out;
+    std::int64_t configurations = 0, comparisons = 0;
+    out["monotone"] = true;
+    out["detail"] = "";
+    with_rule_spec(rule_spec, model->n_sites(), q, model->step(), -reach, reach, [&](auto rule) {
+        for (py::ssize_t i = 0; i < sites.size(); ++i) {
+            const auto r = check_site_monotone(*model, rule, sites.data()[i], window, bits);
+            configurations += r.configurations;
+            comparisons += r.comparisons;
+            if (!r.monotone) {
+                out["monotone"] = false;
+                out["detail"] = r.detail;
+                break;
+            }
+        }
+        return 0;
+    });
+    out["configurations"] = configurations;
+    out["comparisons"] = comparisons;
     return out;
 }
 
@@ -104,7 +139,7 @@ void register_engine(py::module_& parent) {
     m.def("sample", &sample, py::arg("model"), py::arg("least"), py::arg("greatest"), py::arg("q"),
           py::arg("key0"), py::arg("key1"), py::arg("check_order") = false,
           py::arg("max_start_time") = std::int64_t(1) << 40, py::arg("progress") = py::none(),
-          py::arg("thresholds") = py::none());
+          py::arg("rule") = py::none());
 
     py::class_<forward_chain, std::shared_ptr<forward_chain>>(m, "ForwardChain")
         .def("run", [](forward_chain& chain, std::int64_t sweeps, py::object progress) {
@@ -118,7 +153,11 @@ void register_engine(py::module_& parent) {
 
     m.def("generic_chain", &make_chain, py::arg("model"), py::arg("start"), py::arg("min_height"),
           py::arg("max_height"), py::arg("q"), py::arg("key0"), py::arg("key1"), py::arg("time") = 0,
-          py::arg("thresholds") = py::none());
+          py::arg("rule") = py::none());
+
+    m.def("check_monotone", &check_monotone, py::arg("model"), py::arg("q"), py::arg("rule"), py::arg("sites"),
+          py::arg("window"), py::arg("test_bits"),
+          "Exhaustive monotonicity check of the heat-bath rule at the given sites (see monotonicity.hpp).");
 
     m.def("heat_bath_draws", &heat_bath_draws, py::arg("lo"), py::arg("hi"), py::arg("step"), py::arg("q"),
           py::arg("min_height"), py::arg("max_height"), py::arg("bits"),

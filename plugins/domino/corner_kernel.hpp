@@ -99,7 +99,7 @@ private:
         const std::int32_t left = h[at - 1], right = h[at + 1], up = h[at - w], down = h[at + w];
         const std::int32_t lo = std::max(std::max(left, right) - h_down, std::max(up, down) - v_down);
         const std::int32_t hi = std::min(std::min(left, right) + h_up, std::min(up, down) + v_up);
-        return rule_.draw(lo, hi, bits, site);
+        return rule_.draw(lo, hi, bits, site, h);
     }
 
     const corner_layout& layout_;

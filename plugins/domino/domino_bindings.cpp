@@ -30,14 +30,14 @@ void check_state(const corner_layout& layout, const int_array& a, const char* wh
 }
 
 py::tuple corner_sample(std::shared_ptr<corner_layout> layout, const int_array& least, const int_array& greatest,
-                        py::object thresholds, std::uint64_t word0, std::uint64_t word1, bool check_order,
+                        py::object rule_spec, std::uint64_t word0, std::uint64_t word1, bool check_order,
                         std::int64_t max_start_time, py::object progress) {
     check_state(*layout, least, "least");
     check_state(*layout, greatest, "greatest");
     const auto top = to_vector(greatest), bottom = to_vector(least);
     const auto control = make_control(progress, max_start_time, check_order);
     run_report report;
-    auto result = with_rule_or_thresholds(thresholds, layout->n_sites(), 1.0, 4, 0, 0, [&](auto rule) {
+    auto result = with_rule_spec(rule_spec, layout->n_sites(), 1.0, 4, 0, 0, [&](auto rule) {
         corner_sweeper<decltype(rule)> sweeper(*layout, rule, make_key(word0, word1), stream::coupling_from_the_past);
         std::vector<std::int32_t> out;
         {
@@ -51,10 +51,10 @@ py::tuple corner_sample(std::shared_ptr<corner_layout> layout, const int_array& 
 }
 
 std::shared_ptr<forward_chain> corner_chain(std::shared_ptr<corner_layout> layout, const int_array& start,
-                                            py::object thresholds, std::uint64_t word0, std::uint64_t word1,
+                                            py::object rule_spec, std::uint64_t word0, std::uint64_t word1,
                                             std::int64_t time) {
     check_state(*layout, start, "start");
-    return with_rule_or_thresholds(thresholds, layout->n_sites(), 1.0, 4, 0, 0, [&](auto rule) {
+    return with_rule_spec(rule_spec, layout->n_sites(), 1.0, 4, 0, 0, [&](auto rule) {
         corner_sweeper<decltype(rule)> sweeper(*layout, rule, make_key(word0, word1), stream::forward_chain);
         // the lambda owns the layout, so the chain may outlive the caller's handle
         auto sweep = [layout, sweeper](std::int32_t* h, std::int64_t t) { sweeper.sweep(h, t); };
@@ -70,10 +70,10 @@ void register_domino(py::module_& parent) {
         .def(py::init(&make_layout), py::arg("rows"), py::arg("columns"), py::arg("runs"))
         .def_property_readonly("n_sites", &corner_layout::n_sites);
     m.def("corner_sample", &corner_sample, py::arg("layout"), py::arg("least"), py::arg("greatest"),
-          py::arg("thresholds"), py::arg("key0"), py::arg("key1"), py::arg("check_order") = false,
+          py::arg("rule"), py::arg("key0"), py::arg("key1"), py::arg("check_order") = false,
           py::arg("max_start_time") = std::int64_t(1) << 40, py::arg("progress") = py::none(),
           "Exact domino heights on the corner grid by CFTP with the fast kernel: (heights, report).");
-    m.def("corner_chain", &corner_chain, py::arg("layout"), py::arg("start"), py::arg("thresholds"),
+    m.def("corner_chain", &corner_chain, py::arg("layout"), py::arg("start"), py::arg("rule"),
           py::arg("key0"), py::arg("key1"), py::arg("time") = 0);
     register_domino_shuffling(m);
 }

@@ -85,8 +85,8 @@ public:
                     const std::int32_t lo_b = std::max(row_b[s + w], row_b[s + 1]);
                     const std::uint64_t site = first_site + s;
                     const std::uint64_t bits = site_bits(base, site);
-                    row_t[s] = rule_.draw(lo_t, hi_t, bits, site);
-                    row_b[s] = rule_.draw(lo_b, hi_b, bits, site);
+                    row_t[s] = rule_.draw(lo_t, hi_t, bits, site, top);
+                    row_b[s] = rule_.draw(lo_b, hi_b, bits, site, bottom);
                 }
             }
         }
@@ -100,7 +100,7 @@ private:
         for (std::int32_t s = (parity + r) & 1; s < layout_.columns(); s += 2) {
             const std::int32_t hi = std::min(row[s - w], row[s - 1]);
             const std::int32_t lo = std::max(row[s + w], row[s + 1]);
-            row[s] = rule_.draw(lo, hi, site_bits(base, first_site + s), first_site + s);
+            row[s] = rule_.draw(lo, hi, site_bits(base, first_site + s), first_site + s, h);
         }
     }
 

@@ -18,6 +18,7 @@ from __future__ import annotations
 from typing import Any
 
 from ._version import __version__
+from .checker import MonotonicityReport, check_monotone
 from .errors import FrostlineWarning, RegionTooLargeError
 from .io import load, save
 from .model import HeightModel
@@ -29,12 +30,14 @@ __all__ = [
     "Chain",
     "FrostlineWarning",
     "HeightModel",
+    "MonotonicityReport",
     "Region",
     "RegionTooLargeError",
     "Sample",
     "SampleInfo",
     "SeedRecord",
     "__version__",
+    "check_monotone",
     "lattice",
     "lattices",
     "load",

@@ -147,9 +147,25 @@ def _region(args):
     return lozenge.from_boundary(" ".join(text.split()), q=args.q)
 
 
+def _check_outputs(picture: Optional[Path], output: Optional[Path]) -> None:
+    """Refuse unusable output paths before a long run, not after it."""
+    from .plot import FORMATS
+
+    if picture is not None:
+        if picture.suffix.lower() not in FORMATS:
+            raise ValueError(f"picture format {picture.suffix or '(none)'!r} is not supported; use one of "
+                             f"{', '.join(FORMATS)}")
+    if output is not None and output.suffix != ".npz":
+        raise ValueError(f"sample files end in .npz, got {output.name!r}")
+    for path in (picture, output):
+        if path is not None and not path.resolve().parent.is_dir():
+            raise ValueError(f"the folder of {path} does not exist")
+
+
 def _sample(args) -> int:
     from .progress import StderrProgress
 
+    _check_outputs(args.picture, args.output)
     progress = StderrProgress("building the region")
     region = _region(args)
     progress.note("coupling from the past")
@@ -175,6 +191,8 @@ def _write(sample, picture: Optional[Path], output: Optional[Path]) -> None:
 
 
 def _count(args) -> int:
+    if hasattr(sys, "set_int_max_str_digits"):
+        sys.set_int_max_str_digits(0)  # counts can have millions of digits
     print(_region(args).count())
     return 0
 
@@ -182,6 +200,7 @@ def _count(args) -> int:
 def _show(args) -> int:
     from .io import load
 
+    _check_outputs(args.picture, None)
     sample = load(args.file)
     print(f"{args.file}: {sample.region!r}")
     _print_info(sample)

@@ -84,6 +84,6 @@ def load(path: PathLike) -> Sample:
     region = plugin.region_from_record(record["region"], arrays)
     diagnostics = dict(record["diagnostics"])
     diagnostics.pop("version", None)
-    seed = SeedRecord(entropy=int(record["seed"]["entropy"]), spawn_key=tuple(record["seed"]["spawn_key"]))
+    seed = SeedRecord.from_dict(record["seed"])
     info = SampleInfo(seed=seed, version=record["frostline_version"], **diagnostics)
     return Sample(region=region, heights=heights, info=info)

@@ -27,6 +27,21 @@ ProgressHook = Optional[Callable[[int, int, float], None]]
 _NO_LIMIT = 2**40
 
 
+def _int32(values, name: str) -> np.ndarray:
+    """An int32 copy, refusing values that would wrap (rather than silently changing them)."""
+    a = np.asarray(values)
+    if a.size == 0:
+        return np.zeros(a.shape, dtype=np.int32)
+    if not np.issubdtype(a.dtype, np.integer):
+        if np.issubdtype(a.dtype, np.floating) and np.all(a == np.round(a)):
+            a = a.astype(np.int64)
+        else:
+            raise TypeError(f"{name} must hold integers, got dtype {a.dtype}")
+    if a.min() < -(2**31) or a.max() >= 2**31:
+        raise ValueError(f"{name} holds values outside the 32-bit range")
+    return np.ascontiguousarray(a, dtype=np.int32)
+
+
 class HeightModel:
     """A height model described by arrays; see the module docstring for conventions.
 
@@ -61,10 +76,13 @@ class HeightModel:
     ) -> None:
         self.n_sites = int(n_sites)
         self.step = int(step)
-        self.boundary_values = np.ascontiguousarray(boundary_values, dtype=np.int32).ravel()
-        self.constraints = np.ascontiguousarray(constraints, dtype=np.int32).reshape(-1, 3)
-        self.residues = np.ascontiguousarray(residues, dtype=np.int32).ravel()
-        self.colour_classes = np.ascontiguousarray(colour_classes, dtype=np.int32).ravel()
+        self.boundary_values = _int32(boundary_values, "boundary_values").ravel()
+        self.constraints = _int32(constraints, "constraints").reshape(-1, 3)
+        self.residues = _int32(residues, "residues").ravel()
+        self.colour_classes = _int32(colour_classes, "colour_classes").ravel()
+        if self.n_sites < 0 or self.n_sites + self.boundary_values.size >= 2**31:
+            raise ValueError(f"a model holds at most 2^31 - 1 nodes, got {self.n_sites} sites and "
+                             f"{self.boundary_values.size} boundary nodes")
         self._compiled = _core.engine.HeightModel(
             self.n_sites, self.boundary_values, self.constraints, self.residues, self.step, self.colour_classes
         )
@@ -109,25 +127,25 @@ class HeightModel:
         check_order: bool = False,
         max_start_time: int = _NO_LIMIT,
         progress: ProgressHook = None,
-        thresholds: Optional[np.ndarray] = None,
+        rule: Optional[dict] = None,
     ) -> Tuple[np.ndarray, dict]:
         """One exact sample (heights over all nodes) and the engine's report.
 
-        ``thresholds`` (uint64, one per site) selects the two-point rule: a site
-        with two allowed heights takes the higher one with probability
-        threshold / 2^64 (used for edge-weighted dimer models; q must be 1).
+        ``rule`` selects a two-point heat bath instead of the q rule (q must be 1):
+        ``{"thresholds": uint64 per site}`` takes the higher of two allowed
+        heights with probability threshold / 2^64 (edge-weighted dimers);
+        ``{"context_start", "context_nodes", "context_offset", "context_table"}``
+        reads the probability from a table indexed by which context nodes lie
+        above the middle of the two values (six-vertex weights).
         """
         least, greatest = self.extremes()
         return _core.engine.sample(
-            self._compiled, least, greatest, float(q), key[0], key[1], check_order, max_start_time, progress,
-            thresholds,
+            self._compiled, least, greatest, float(q), key[0], key[1], check_order, max_start_time, progress, rule
         )
 
-    def chain(self, q: float, key: Tuple[int, int], start: np.ndarray, time: int = 0,
-              thresholds: Optional[np.ndarray] = None):
+    def chain(self, q: float, key: Tuple[int, int], start: np.ndarray, time: int = 0, rule: Optional[dict] = None):
         """A compiled forward chain from ``start`` (heights over all nodes)."""
         low, high = self._height_range()
         return _core.engine.generic_chain(
-            self._compiled, np.ascontiguousarray(start, dtype=np.int32), low, high, float(q), key[0], key[1], time,
-            thresholds,
+            self._compiled, np.ascontiguousarray(start, dtype=np.int32), low, high, float(q), key[0], key[1], time, rule
         )

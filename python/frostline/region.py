@@ -55,8 +55,8 @@ class SampleInfo:
 
     def as_dict(self) -> Dict[str, Any]:
         """Plain-data form (for printing and metadata records)."""
-        d = asdict(self)
-        d["seed"] = {"entropy": self.seed.entropy, "spawn_key": list(self.seed.spawn_key)}
+        d = {k: v for k, v in asdict(self).items() if k != "seed"}
+        d["seed"] = self.seed.as_dict()
         return d
 
 
@@ -138,6 +138,8 @@ def _check_count(value: Any, name: str) -> int:
         raise TypeError(f"{name} must be an int, got {type(value).__name__}")
     if value < 0:
         raise ValueError(f"{name} must be non-negative, got {value}")
+    if value >= 2**62:
+        raise ValueError(f"{name} = {value} is beyond 2^62")
     return int(value)
 
 
@@ -179,6 +181,10 @@ class Region(abc.ABC):
         """Plain-data (JSON-ready) description of the region and its weights."""
         return {"lattice": self.lattice}
 
+    def heat_bath_rule(self) -> Tuple[Any, float, Optional[dict]]:
+        """(generic HeightModel, q, rule) that the exact samplers run; see :func:`frostline.check_monotone`."""
+        raise NotImplementedError(f"{type(self).__name__} does not expose its heat-bath rule")
+
     def record_arrays(self) -> Dict[str, np.ndarray]:
         """Arrays that, with :meth:`describe`, rebuild the region (saved in sample files)."""
         return {}
@@ -205,12 +211,15 @@ class Region(abc.ABC):
             Called about every 10^8 site updates and at each doubling.
         """
         sequence = normalise_seed(seed)
-        if isinstance(method, str) is False:
+        record = seed_record(sequence)  # before the run: a bad seed fails fast
+        if not isinstance(method, str):
             raise TypeError(f"method must be a str, got {type(method).__name__}")
         max_start_time = _check_count(max_start_time, "max_start_time")
+        if max_start_time < 1:
+            raise ValueError("max_start_time must be at least 1 sweep")
         heights, report, kernel = self._run_exact(engine_key(sequence), method, bool(check_order),
                                                   max_start_time, progress)
-        info = SampleInfo(method="cftp", kernel=kernel, seed=seed_record(sequence), **report)
+        info = SampleInfo(method="cftp", kernel=kernel, seed=record, **report)
         return Sample(region=self, heights=heights, info=info)
 
     def chain(self, seed: SeedLike = None, start: StartLike = "min", *, method: str = "auto") -> Chain:

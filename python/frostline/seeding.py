@@ -9,7 +9,7 @@ from __future__ import annotations
 
 import numbers
 from dataclasses import dataclass
-from typing import Optional, Tuple, Union
+from typing import Tuple, Union
 
 import numpy as np
 
@@ -18,14 +18,27 @@ SeedLike = Union[int, np.random.SeedSequence, None]
 
 @dataclass(frozen=True)
 class SeedRecord:
-    """What reproduces a run: the SeedSequence's entropy and spawn key."""
+    """What reproduces a run: the SeedSequence's entropy, spawn key and pool size."""
 
-    entropy: int
+    entropy: Union[int, Tuple[int, ...]]
     spawn_key: Tuple[int, ...]
+    pool_size: int = 4
 
     def sequence(self) -> np.random.SeedSequence:
         """The SeedSequence this record describes."""
-        return np.random.SeedSequence(self.entropy, spawn_key=self.spawn_key)
+        entropy = list(self.entropy) if isinstance(self.entropy, tuple) else self.entropy
+        return np.random.SeedSequence(entropy, spawn_key=self.spawn_key, pool_size=self.pool_size)
+
+    def as_dict(self) -> dict:
+        """JSON-ready form."""
+        entropy = list(self.entropy) if isinstance(self.entropy, tuple) else self.entropy
+        return {"entropy": entropy, "spawn_key": list(self.spawn_key), "pool_size": self.pool_size}
+
+    @classmethod
+    def from_dict(cls, d: dict) -> "SeedRecord":
+        entropy = d["entropy"]
+        entropy = tuple(int(v) for v in entropy) if isinstance(entropy, list) else int(entropy)
+        return cls(entropy, tuple(int(v) for v in d["spawn_key"]), int(d.get("pool_size", 4)))
 
 
 def normalise_seed(seed: SeedLike) -> np.random.SeedSequence:
@@ -59,5 +72,12 @@ def engine_key(sequence: np.random.SeedSequence) -> Tuple[int, int]:
 
 def seed_record(sequence: np.random.SeedSequence) -> SeedRecord:
     """The record stored in every result so the run can be repeated."""
-    entropy: Optional[int] = sequence.entropy  # type: ignore[assignment]
-    return SeedRecord(entropy=int(entropy) if entropy is not None else 0, spawn_key=tuple(sequence.spawn_key))
+    entropy = sequence.entropy
+    if entropy is None:
+        raise ValueError("a SeedSequence without entropy cannot be recorded")
+    if isinstance(entropy, (int, np.integer)):
+        value: Union[int, Tuple[int, ...]] = int(entropy)
+    else:
+        value = tuple(int(v) for v in np.asarray(entropy).ravel())
+    return SeedRecord(entropy=value, spawn_key=tuple(int(v) for v in sequence.spawn_key),
+                      pool_size=int(sequence.pool_size))

@@ -10,6 +10,8 @@
 // doubling schedule that reaches coalescence, which is why different kernels
 // and coalescence checks agree bit for bit.
 #pragma once
+#include <algorithm>
+#include <atomic>
 #include <chrono>
 #include <cstdint>
 #include <functional>
@@ -64,7 +66,7 @@ public:
 
     void add(std::int64_t updates, std::int64_t start_time) {
         progress_.site_updates += updates;
-        since_poll_ += updates;
+        since_poll_ += std::max<std::int64_t>(updates, 1);  // a sweep of no sites still counts, so Ctrl-C works
         if (since_poll_ >= control_.poll_interval) poll(start_time);
     }
 
@@ -175,8 +177,14 @@ public:
                   std::int64_t time)
         : sweep_(std::move(sweep)), n_sites_(n_sites), height_(std::move(height)), time_(time) {}
 
-    // Returns the site updates done.
+    // Returns the site updates done. One run at a time: a second thread
+    // calling run() on the same chain gets an error instead of a data race.
     std::int64_t run(std::int64_t sweeps, const run_control& control) {
+        if (busy_.exchange(true)) throw std::runtime_error("this chain is already running in another thread");
+        struct release {
+            std::atomic<bool>& flag;
+            ~release() { flag = false; }
+        } guard{busy_};
         detail::stopwatch clock;
         detail::poller poll(control, clock);
         for (std::int64_t s = 0; s < sweeps; ++s) {
@@ -195,6 +203,7 @@ private:
     std::int64_t n_sites_;
     std::vector<std::int32_t> height_;
     std::int64_t time_;
+    std::atomic<bool> busy_{false};
 };
 
 }  // namespace frostline

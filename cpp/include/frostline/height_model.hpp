@@ -68,6 +68,35 @@ public:
     const std::vector<std::int64_t>& class_start() const { return class_start_; }
     const std::vector<std::int32_t>& class_sites() const { return class_sites_; }
 
+    // True when `height` (one entry per node) has the boundary values, the
+    // residues and satisfies every constraint; otherwise `why` says what fails.
+    bool is_valid(const std::vector<std::int32_t>& height, std::string& why) const {
+        if (static_cast<std::int64_t>(height.size()) != n_nodes()) {
+            why = "need one height per node";
+            return false;
+        }
+        for (std::size_t b = 0; b < boundary_values_.size(); ++b)
+            if (height[n_sites_ + b] != boundary_values_[b]) {
+                why = "boundary node " + std::to_string(n_sites_ + b) + " must keep its fixed height " +
+                      std::to_string(boundary_values_[b]);
+                return false;
+            }
+        for (std::int32_t v = 0; v < n_sites_; ++v)
+            if (((height[v] - residues_[v]) % step_ + step_) % step_ != 0) {
+                why = "site " + std::to_string(v) + " has height " + std::to_string(height[v]) +
+                      ", not congruent to its residue " + std::to_string(residues_[v]) + " modulo " + std::to_string(step_);
+                return false;
+            }
+        for (const auto& c : constraints_)
+            if (static_cast<std::int64_t>(height[c.to]) - height[c.from] > c.bound) {
+                why = "the heights at nodes " + std::to_string(c.from) + " and " + std::to_string(c.to) +
+                      " break the constraint h[" + std::to_string(c.to) + "] - h[" + std::to_string(c.from) +
+                      "] <= " + std::to_string(c.bound);
+                return false;
+            }
+        return true;
+    }
+
     // Residue of a node: a site's own, or the fixed value's for a boundary node.
     std::int32_t residue_of(std::int32_t node) const {
         if (node < n_sites_) return residues_[node];
@@ -76,7 +105,13 @@ public:
     }
 
 private:
+    static constexpr std::int32_t max_magnitude = 1 << 30;  // keeps height + bound inside int32
+
     void check_constraints() const {
+        for (std::size_t b = 0; b < boundary_values_.size(); ++b)
+            if (boundary_values_[b] > max_magnitude || boundary_values_[b] < -max_magnitude)
+                throw invalid_model("boundary value " + std::to_string(boundary_values_[b]) +
+                                    " lies outside +-2^30");
         const std::int32_t nodes = n_nodes();
         for (std::size_t e = 0; e < constraints_.size(); ++e) {
             const auto& c = constraints_[e];
@@ -84,6 +119,9 @@ private:
                 throw invalid_model("constraint " + std::to_string(e) + " names node " +
                                     std::to_string(c.from < 0 || c.from >= nodes ? c.from : c.to) +
                                     ", outside 0.." + std::to_string(nodes - 1));
+            if (c.bound > max_magnitude || c.bound < -max_magnitude)
+                throw invalid_model("constraint " + std::to_string(e) + " has bound " + std::to_string(c.bound) +
+                                    "; bounds must lie within +-2^30");
             if (c.from == c.to)
                 throw invalid_model("constraint " + std::to_string(e) + " joins node " +
                                     std::to_string(c.from) + " to itself");

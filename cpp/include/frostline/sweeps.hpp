@@ -28,7 +28,7 @@ public:
         const std::uint64_t base = sweep_base(key_, stream_, time);
         for_each_site([&](std::int32_t v) {
             auto [lo, hi] = bounds(height, v);
-            height[v] = rule_.draw(lo, hi, site_bits(base, static_cast<std::uint64_t>(v)), v);
+            height[v] = rule_.draw(lo, hi, site_bits(base, static_cast<std::uint64_t>(v)), v, height);
         });
     }
 
@@ -39,8 +39,8 @@ public:
             const std::uint64_t bits = site_bits(base, static_cast<std::uint64_t>(v));
             auto [lo_t, hi_t] = bounds(top, v);
             auto [lo_b, hi_b] = bounds(bottom, v);
-            top[v] = rule_.draw(lo_t, hi_t, bits, v);
-            bottom[v] = rule_.draw(lo_b, hi_b, bits, v);
+            top[v] = rule_.draw(lo_t, hi_t, bits, v, top);
+            bottom[v] = rule_.draw(lo_b, hi_b, bits, v, bottom);
         });
     }
 

@@ -118,7 +118,7 @@ class DominoRegion(Region):
         self._boundary_points = boundary_points
         self._inner = (inner_t, inner_h)
         self.corner_mask = g.corner_in.copy()
-        self._thresholds = flip_thresholds(self.weights, rc) if self.weights is not None else None
+        self._rule = {"thresholds": flip_thresholds(self.weights, rc)} if self.weights is not None else None
         least, greatest = self._model.extremes()  # decides tileability, naming the place on failure
         self._least_grid = self._grid(least)
         self._greatest_grid = self._grid(greatest)
@@ -233,10 +233,10 @@ class DominoRegion(Region):
             return self._shuffle(key, progress)
         if method == "generic":
             heights, report = self._model.sample(1.0, key, check_order=check_order, max_start_time=max_start_time,
-                                                 progress=progress, thresholds=self._thresholds)
+                                                 progress=progress, rule=self._rule)
             return self._grid(heights), report, "generic"
         heights, report = _core.domino.corner_sample(
-            self._layout, self._least_grid.ravel(), self._greatest_grid.ravel(), self._thresholds, key[0], key[1],
+            self._layout, self._least_grid.ravel(), self._greatest_grid.ravel(), self._rule, key[0], key[1],
             check_order, max_start_time, progress)
         return np.asarray(heights, dtype=np.int32).reshape(self._least_grid.shape), report, "corner grid"
 
@@ -280,10 +280,14 @@ class DominoRegion(Region):
                 raise ValueError("start is not a height function of this region")
         reshape = self._least_grid.shape
         if method == "generic":
-            return (self._model.chain(1.0, key, self._nodes(grid), thresholds=self._thresholds), self._grid)
+            return (self._model.chain(1.0, key, self._nodes(grid), rule=self._rule), self._grid)
         compiled = _core.domino.corner_chain(self._layout, np.ascontiguousarray(grid, np.int32).ravel(),
-                                             self._thresholds, key[0], key[1])
+                                             self._rule, key[0], key[1])
         return compiled, lambda h: np.asarray(h, dtype=np.int32).reshape(reshape)
+
+    def heat_bath_rule(self):
+        """(generic model, 1, rule): uniform, or the two-point rule of the edge weights."""
+        return self._model, 1.0, self._rule
 
     @property
     def model(self) -> HeightModel:

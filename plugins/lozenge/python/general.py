@@ -216,6 +216,10 @@ class LozengeRegion(Region):
         ok_residue = np.all((nodes[: self._model.n_sites] - self._model.residues) % 3 == 0)
         return bool(ok_bounds and ok_edges and ok_residue)
 
+    def heat_bath_rule(self):
+        """(generic model, q, None): the q^volume heat bath on lattice-point heights."""
+        return self._model, self.q, None
+
     @property
     def model(self) -> HeightModel:
         """The generic height model this region lowers to."""

@@ -34,7 +34,10 @@ def _side(value: Any, name: str) -> int:
 def _weight(q: Any) -> Tuple[float, Fraction]:
     if isinstance(q, bool) or not isinstance(q, (numbers.Real, Fraction)):
         raise TypeError(f"q must be a real number, got {q!r} of type {type(q).__name__}")
-    value = float(q)
+    try:
+        value = float(q)
+    except OverflowError:
+        raise ValueError("q must be a finite positive number, got one too large for a float") from None
     if not np.isfinite(value) or value <= 0.0:
         raise ValueError(f"q must be a finite positive number, got {q!r}")
     return value, Fraction(q) if isinstance(q, (Fraction, numbers.Integral)) else Fraction(value)
@@ -85,6 +88,8 @@ class HexagonRegion(Region):
         if self._model is None:
             a, b, c = self.a, self.b, self.c
             n = a * b
+            # constraint rows (3 x int64 and int32 copies), CSR lists, extremes and chains
+            check_memory(300 * (n + 2) + 10**6, f"the generic model of the {a}x{b}x{c} hexagon")
             top, floor = n, n + 1
             site = np.arange(n, dtype=np.int64).reshape(a, b)
             pairs = np.zeros((0, 2), np.int64)
@@ -104,6 +109,10 @@ class HexagonRegion(Region):
             r, s = np.divmod(np.arange(n), max(b, 1))
             self._model = HeightModel(n, np.array([c, 0]), constraints, np.zeros(n), 1, (r + s) % 2)
         return self._model
+
+    def heat_bath_rule(self):
+        """(generic model, q, None): the q^volume heat bath on plane partitions."""
+        return self.lower(), self.q, None
 
     def _cells(self, node_heights: np.ndarray) -> np.ndarray:
         return np.asarray(node_heights[: self.a * self.b], dtype=np.int32).reshape(self.a, self.b)

@@ -67,18 +67,43 @@ auto with_rule(double q, std::int32_t step, std::int64_t min_height, std::int64_
     return body(geometric_rule(q, step, min_height, max_height));
 }
 
-// Calls body(rule) with the two-point rule when per-site thresholds are given
-// (one uint64 per site), else with the q rule of with_rule.
+template <class T>
+std::vector<T> vector_of(const py::handle& obj, const char* what) {
+    try {
+        auto a = obj.cast<py::array_t<T, py::array::c_style | py::array::forcecast>>();
+        return std::vector<T>(a.data(), a.data() + a.size());
+    } catch (const py::cast_error&) {
+        throw invalid_model(std::string("rule entry '") + what + "' must be a numeric array");
+    }
+}
+
+// Calls body(rule) for a rule described from Python: None means the q rule
+// of with_rule; a dict with "thresholds" (uint64, one per site) the two-point
+// rule; a dict with "context_start", "context_nodes", "context_offset",
+// "context_table" the context rule. Dispatch happens once per call.
 template <class Body>
-auto with_rule_or_thresholds(const py::object& thresholds, std::int64_t n_sites, double q, std::int32_t step,
-                             std::int64_t min_height, std::int64_t max_height, Body&& body) {
-    if (thresholds.is_none()) return with_rule(q, step, min_height, max_height, body);
-    auto t = thresholds.cast<py::array_t<std::uint64_t, py::array::c_style | py::array::forcecast>>();
-    if (t.size() != n_sites)
-        throw invalid_model("need one threshold per site: got " + std::to_string(t.size()) + " for " +
-                            std::to_string(n_sites) + " sites");
-    if (q != 1.0) throw invalid_model("per-site thresholds and a q weight cannot be combined");
-    return body(flip_rule(std::vector<std::uint64_t>(t.data(), t.data() + t.size()), step));
+auto with_rule_spec(const py::object& spec, std::int64_t n_sites, double q, std::int32_t step,
+                    std::int64_t min_height, std::int64_t max_height, Body&& body) {
+    if (spec.is_none()) return with_rule(q, step, min_height, max_height, body);
+    if (!py::isinstance<py::dict>(spec)) throw invalid_model("a rule is None or a dict");
+    const auto d = spec.cast<py::dict>();
+    if (q != 1.0) throw invalid_model("a rule with thresholds and a q weight cannot be combined");
+    if (d.contains("thresholds")) {
+        auto t = vector_of<std::uint64_t>(d["thresholds"], "thresholds");
+        if (static_cast<std::int64_t>(t.size()) != n_sites)
+            throw invalid_model("need one threshold per site: got " + std::to_string(t.size()) + " for " +
+                                std::to_string(n_sites) + " sites");
+        return body(flip_rule(std::move(t), step));
+    }
+    if (d.contains("context_table")) {
+        auto start = vector_of<std::int64_t>(d["context_start"], "context_start");
+        if (static_cast<std::int64_t>(start.size()) != n_sites + 1)
+            throw invalid_model("context_start needs n_sites + 1 entries");
+        return body(context_rule(std::move(start), vector_of<std::int32_t>(d["context_nodes"], "context_nodes"),
+                                 vector_of<std::int64_t>(d["context_offset"], "context_offset"),
+                                 vector_of<std::uint64_t>(d["context_table"], "context_table"), step));
+    }
+    throw invalid_model("a rule dict needs 'thresholds' or the four 'context_*' arrays");
 }
 
 // Refuses a result when a two-point rule met a wider interval.
