@@ -6,6 +6,7 @@ namespace frostline::bindings {
 void register_engine(py::module_& m);
 void register_lozenge(py::module_& m);
 void register_domino(py::module_& m);
+void register_square_ice(py::module_& m);
 }  // namespace frostline::bindings
 
 PYBIND11_MODULE(_core, m) {
@@ -15,4 +16,5 @@ PYBIND11_MODULE(_core, m) {
     register_engine(m);
     register_lozenge(m);
     register_domino(m);
+    register_square_ice(m);
 }

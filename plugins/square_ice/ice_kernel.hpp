@@ -1,0 +1,84 @@
+// Fast kernel for square ice (six-vertex) heights on the (n+1) x (n+1) corner grid.
+//
+// Neighbouring corners differ by exactly 1, so a free corner has two allowed
+// heights (m - 1, m + 1) when its four neighbours all equal m, and one
+// otherwise. Vertex weights (a, b, c) make the chance of the higher value
+// depend on the four diagonal corners, read as a 4-bit pattern
+// (NW, NE, SW, SE; bit set when the corner lies above m) and looked up in a
+// table of uint64 thresholds; without a table the two values are equally
+// likely (the uniform rule of the engine, step 2). Colour classes are
+// 2 * (i % 2) + (j % 2), in increasing order, so no two corners of a class
+// touch even diagonally; site id = rank among free corners in row-major
+// order. The generic lowering uses the same classes, ids, pattern and table,
+// so both paths return the identical sample for the same key.
+#pragma once
+#include <algorithm>
+#include <cstdint>
+#include <vector>
+
+#include "frostline/local_rule.hpp"
+#include "frostline/random.hpp"
+
+namespace frostline::square_ice {
+
+class ice_sweeper {
+public:
+    // free[i * (n + 1) + j] != 0 marks free corners; table: 16 thresholds or empty (uniform).
+    ice_sweeper(std::int32_t n, std::vector<std::uint8_t> free, std::vector<std::uint64_t> table, random_key key,
+                stream s)
+        : n_(n), free_(std::move(free)), table_(std::move(table)), key_(key), stream_(s), uniform_(2) {
+        site_id_.assign(free_.size(), -1);
+        std::int64_t next = 0;
+        for (std::size_t k = 0; k < free_.size(); ++k)
+            if (free_[k]) site_id_[k] = next++;
+        n_sites_ = next;
+    }
+
+    std::int64_t n_sites() const { return n_sites_; }
+    std::int64_t wide_intervals() const { return 0; }
+
+    void sweep(std::int32_t* h, std::int64_t time) const { run<false>(h, nullptr, time); }
+    void sweep_pair(std::int32_t* top, std::int32_t* bottom, std::int64_t time) const { run<true>(top, bottom, time); }
+
+private:
+    template <bool pair>
+    void run(std::int32_t* a, std::int32_t* b, std::int64_t time) const {
+        const std::uint64_t base = sweep_base(key_, stream_, time);
+        const std::int64_t w = n_ + 1;
+        for (std::int32_t colour = 0; colour < 4; ++colour)
+            for (std::int32_t i = 1 + ((colour >> 1) ^ 1); i < n_; i += 2)
+                for (std::int32_t j = 1 + ((colour & 1) ^ 1); j < n_; j += 2) {
+                    const std::int64_t at = i * w + j;
+                    if (!free_[at]) continue;
+                    const auto site = static_cast<std::uint64_t>(site_id_[at]);
+                    const std::uint64_t bits = site_bits(base, site);
+                    a[at] = draw(a, at, w, bits);
+                    if constexpr (pair) b[at] = draw(b, at, w, bits);
+                }
+    }
+
+    std::int32_t draw(const std::int32_t* h, std::int64_t at, std::int64_t w, std::uint64_t bits) const {
+        const std::int32_t up = h[at - w], down = h[at + w], left = h[at - 1], right = h[at + 1];
+        const std::int32_t lo = std::max(std::max(up, down), std::max(left, right)) - 1;
+        const std::int32_t hi = std::min(std::min(up, down), std::min(left, right)) + 1;
+        if (table_.empty()) return uniform_.draw(lo, hi, bits, 0, h);
+        if (lo == hi) return lo;
+        const std::int64_t twice_mid = static_cast<std::int64_t>(lo) + hi;
+        const std::uint32_t pattern = (2 * static_cast<std::int64_t>(h[at - w - 1]) > twice_mid) |
+                                      (2 * static_cast<std::int64_t>(h[at - w + 1]) > twice_mid) << 1 |
+                                      (2 * static_cast<std::int64_t>(h[at + w - 1]) > twice_mid) << 2 |
+                                      (2 * static_cast<std::int64_t>(h[at + w + 1]) > twice_mid) << 3;
+        return bits < table_[pattern] ? hi : lo;
+    }
+
+    std::int32_t n_;
+    std::vector<std::uint8_t> free_;
+    std::vector<std::int64_t> site_id_;
+    std::vector<std::uint64_t> table_;
+    random_key key_;
+    stream stream_;
+    uniform_rule uniform_;
+    std::int64_t n_sites_ = 0;
+};
+
+}  // namespace frostline::square_ice

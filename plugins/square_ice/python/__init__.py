@@ -1,0 +1,1 @@
+"""Square ice (six-vertex model)."""
