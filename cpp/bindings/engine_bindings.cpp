@@ -3,6 +3,7 @@
 #include <memory>
 
 #include "frostline/bindings/support.hpp"
+#include "frostline/graph_tools.hpp"
 #include "frostline/height_model.hpp"
 #include "frostline/monotonicity.hpp"
 #include "frostline/sweeps.hpp"
@@ -158,6 +159,39 @@ void register_engine(py::module_& parent) {
     m.def("check_monotone", &check_monotone, py::arg("model"), py::arg("q"), py::arg("rule"), py::arg("sites"),
           py::arg("window"), py::arg("test_bits"),
           "Exhaustive monotonicity check of the heat-bath rule at the given sites (see monotonicity.hpp).");
+
+    using long_array = py::array_t<std::int64_t, py::array::c_style | py::array::forcecast>;
+    auto longs = [](const long_array& a) { return std::vector<std::int64_t>(a.data(), a.data() + a.size()); };
+    m.def("connected_components", [longs](std::int64_t n, const long_array& a, const long_array& b) {
+        if (a.size() != b.size()) throw invalid_model("links need two equally long arrays");
+        std::vector<std::int64_t> out;
+        {
+            const auto va = longs(a), vb = longs(b);
+            py::gil_scoped_release free;  // large regions: millions of links
+            out = connected_components(n, va, vb);
+        }
+        py::array_t<std::int64_t> result(static_cast<py::ssize_t>(out.size()));
+        std::copy(out.begin(), out.end(), result.mutable_data());
+        return result;
+    }, py::arg("n"), py::arg("a"), py::arg("b"), "Component labels of n items joined by links (a[k], b[k]).");
+    m.def("integrate_heights", [longs](const long_array& values,
+                                       const py::array_t<std::uint8_t, py::array::c_style | py::array::forcecast>& known,
+                                       const long_array& tails, const long_array& heads, const long_array& deltas) {
+        if (known.size() != values.size() || tails.size() != heads.size() || tails.size() != deltas.size())
+            throw invalid_model("integrate_heights: array lengths disagree");
+        std::vector<std::int64_t> out;
+        {
+            auto v = longs(values);
+            std::vector<std::uint8_t> k(known.data(), known.data() + known.size());
+            const auto t = longs(tails), h = longs(heads), d = longs(deltas);
+            py::gil_scoped_release free;
+            out = integrate_heights(std::move(v), std::move(k), t, h, d);
+        }
+        py::array_t<std::int64_t> result(static_cast<py::ssize_t>(out.size()));
+        std::copy(out.begin(), out.end(), result.mutable_data());
+        return result;
+    }, py::arg("values"), py::arg("known"), py::arg("tails"), py::arg("heads"), py::arg("deltas"),
+       "Heights along edges (h[head] - h[tail] = delta) from the known ones, breadth first.");
 
     m.def("heat_bath_draws", &heat_bath_draws, py::arg("lo"), py::arg("hi"), py::arg("step"), py::arg("q"),
           py::arg("min_height"), py::arg("max_height"), py::arg("bits"),

@@ -79,42 +79,19 @@ def integrate(values: np.ndarray, known: np.ndarray, tails: np.ndarray, heads: n
     """Fill unknown heights from known ones along edges with h[head] - h[tail] = delta.
 
     ``values`` and ``known`` are flat arrays over points (known values are
-    kept). Raises ValueError if the edges give a point two different heights
-    (the tiling data is inconsistent) or leave a point unreached.
+    kept). Raises ValueError if two paths give a point different heights (the
+    tiling data is inconsistent). Runs in the compiled engine (breadth first).
     """
-    h = np.array(values, dtype=np.int64)
-    k = np.array(known, dtype=bool)
-    tails, heads, deltas = (np.asarray(a, dtype=np.int64) for a in (tails, heads, deltas))
-    involved = np.unique(np.concatenate([tails, heads]))
-    while not k[involved].all():
-        forward = k[tails] & ~k[heads]
-        backward = k[heads] & ~k[tails]
-        if not forward.any() and not backward.any():
-            raise ValueError("some points cannot be reached from the boundary")
-        h[heads[forward]] = h[tails[forward]] + deltas[forward]
-        k[heads[forward]] = True
-        back = backward & ~k[tails]
-        h[tails[back]] = h[heads[back]] - deltas[back]
-        k[tails[back]] = True
-    if np.any(h[heads] - h[tails] != deltas):
-        raise ValueError("the tiles do not give a consistent height function")
-    return h
+    from . import _core
+
+    return _core.engine.integrate_heights(np.asarray(values, dtype=np.int64), np.asarray(known, dtype=np.uint8),
+                                          np.asarray(tails, dtype=np.int64), np.asarray(heads, dtype=np.int64),
+                                          np.asarray(deltas, dtype=np.int64))
 
 
 def pieces(n_items: int, links_a: np.ndarray, links_b: np.ndarray) -> np.ndarray:
-    """Connected components (labels 0..k-1) of items joined by links (union-find)."""
-    parent = np.arange(n_items)
+    """Connected components (labels 0..k-1) of items joined by links (union-find in the engine)."""
+    from . import _core
 
-    def find(x: int) -> int:
-        while parent[x] != x:
-            parent[x] = parent[parent[x]]
-            x = parent[x]
-        return x
-
-    for a, b in zip(np.asarray(links_a).tolist(), np.asarray(links_b).tolist()):
-        ra, rb = find(a), find(b)
-        if ra != rb:
-            parent[max(ra, rb)] = min(ra, rb)
-    roots = np.array([find(x) for x in range(n_items)])
-    _, labels = np.unique(roots, return_inverse=True)
-    return labels
+    return _core.engine.connected_components(int(n_items), np.asarray(links_a, dtype=np.int64),
+                                             np.asarray(links_b, dtype=np.int64))

@@ -82,6 +82,11 @@ class SquareGeometry:
         r, c = divmod(int(corner), self.shape[1] + 1)
         return f"corner ({r}, {c})"
 
+    def residues(self, corners: np.ndarray) -> np.ndarray:
+        """Residue modulo 4 of each corner id (vectorised :meth:`residue`)."""
+        r, c = np.divmod(np.asarray(corners, dtype=np.int64), self.shape[1] + 1)
+        return RESIDUE[r % 2, c % 2]
+
     def residue(self, corner: int) -> int:
         r, c = divmod(int(corner), self.shape[1] + 1)
         return int(RESIDUE[r % 2, c % 2])

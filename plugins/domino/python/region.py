@@ -54,7 +54,7 @@ class DominoRegion(Region):
     tile_classes = TILE_CLASSES
 
     def __init__(self, mask: Any, horizontal: Any = None, vertical: Any = None, *, class_offset: int = 0,
-                 description: Optional[Dict[str, Any]] = None) -> None:
+                 description: Optional[Dict[str, Any]] = None, known_tileable: bool = False) -> None:
         self.mask = as_mask(mask)
         R, C = self.mask.shape
         check_memory(200 * (R + 1) * (C + 1), f"a {R}x{C} mask")
@@ -72,7 +72,10 @@ class DominoRegion(Region):
             raise ValueError(f"the region cannot be tiled: it has {black} black and {white} white cells "
                              "(cell (r, c) is black when r + c is even), and every domino covers one of each")
         self.geometry = SquareGeometry(self.mask)
+        self._engine_parts: Optional[Dict[str, Any]] = None
         self._build()
+        if not known_tileable:
+            self._engine()  # Thurston decides tileability now, naming the place on failure
 
     def _build(self) -> None:
         g = self.geometry
@@ -91,7 +94,7 @@ class DominoRegion(Region):
         second = np.concatenate([f.cells[1][f.outer] for f in families])
         inside_first = (first >= 0) & self.mask.ravel()[np.maximum(first, 0)]
         edge_piece = piece[np.where(inside_first, first, second)]
-        edge_component = np.array([component[t] for t in tails.tolist()], dtype=np.int64)
+        edge_component = np.fromiter((component[t] for t in tails.tolist()), dtype=np.int64, count=len(tails))
         representative = {}
         for point, comp in component.items():
             representative.setdefault(comp, point)
@@ -102,26 +105,35 @@ class DominoRegion(Region):
         node = np.full((R + 1) * width, -1, dtype=np.int64)
         node[interior] = np.arange(len(interior))
         node[boundary_points] = len(interior) + np.arange(len(boundary_points))
+        self._node = node
+        self._interior = interior
+        self._boundary_points = boundary_points
+        self._boundary_heights = np.array([boundary[v] for v in boundary_points.tolist()], dtype=np.int64)
+        self.corner_mask = g.corner_in.copy()
+
+    def _engine(self) -> Dict[str, Any]:
+        """The generic model, its extremes, the kernel layout and the rule (built on first use).
+
+        Named shapes known to be tileable defer this, so that exact samples by
+        domino shuffling of very large Aztec diamonds never pay for Thurston's
+        algorithm on millions of corners.
+        """
+        if self._engine_parts is not None:
+            return self._engine_parts
+        g = self.geometry
+        R, C = g.shape
+        width = C + 1
+        families = (g.horizontal, g.vertical)
+        node, interior, boundary_points = self._node, self._interior, self._boundary_points
         inner_t = np.concatenate([f.tail[f.inner] for f in families])
         inner_h = np.concatenate([f.head[f.inner] for f in families])
         a, b = node[inner_t], node[inner_h]
         constraints = np.concatenate([np.stack([a, b, np.ones_like(a)], 1), np.stack([b, a, np.full_like(a, 3)], 1)])
         rc = np.stack(np.divmod(interior, width), axis=1)
-        residues = np.array([g.residue(v) for v in interior.tolist()], dtype=np.int64)
         names = np.concatenate([interior, boundary_points])
-        self._model = HeightModel(len(interior), np.array([boundary[v] for v in boundary_points.tolist()]),
-                                  constraints, residues, 4, (rc[:, 0] + rc[:, 1]) % 2,
-                                  node_label=lambda k: g.corner_name(names[k]))
-        self._node = node
-        self._interior = interior
-        self._sites_rc = rc
-        self._boundary_points = boundary_points
-        self._inner = (inner_t, inner_h)
-        self.corner_mask = g.corner_in.copy()
-        self._rule = {"thresholds": flip_thresholds(self.weights, rc)} if self.weights is not None else None
-        least, greatest = self._model.extremes()  # decides tileability, naming the place on failure
-        self._least_grid = self._grid(least)
-        self._greatest_grid = self._grid(greatest)
+        model = HeightModel(len(interior), self._boundary_heights, constraints, g.residues(interior), 4,
+                            (rc[:, 0] + rc[:, 1]) % 2, node_label=lambda k: g.corner_name(names[k]))
+        least, greatest = model.extremes()
         runs = []
         for r in range(1, R):
             cols = np.flatnonzero(g.corner_interior[r])
@@ -130,7 +142,14 @@ class DominoRegion(Region):
                 starts = np.concatenate([[0], breaks + 1])
                 ends = np.concatenate([breaks, [cols.size - 1]])
                 runs += [(r, cols[s], cols[e]) for s, e in zip(starts, ends)]
-        self._layout = _core.domino.CornerLayout(R, C, np.array(runs, dtype=np.int32).reshape(-1, 3))
+        self._engine_parts = {
+            "model": model,
+            "least": self._grid(least),
+            "greatest": self._grid(greatest),
+            "layout": _core.domino.CornerLayout(R, C, np.array(runs, dtype=np.int32).reshape(-1, 3)),
+            "rule": {"thresholds": flip_thresholds(self.weights, rc)} if self.weights is not None else None,
+        }
+        return self._engine_parts
 
     # ----- conversions -------------------------------------------------------------
     def _grid(self, node_heights: np.ndarray) -> np.ndarray:
@@ -142,7 +161,7 @@ class DominoRegion(Region):
 
     def _nodes(self, grid: np.ndarray) -> np.ndarray:
         flat = np.asarray(grid).ravel()
-        out = np.empty(self._model.n_nodes, dtype=np.int64)
+        out = np.empty(len(self._interior) + len(self._boundary_points), dtype=np.int64)
         inside = self._node >= 0
         out[self._node[inside]] = flat[inside]
         return out
@@ -197,7 +216,8 @@ class DominoRegion(Region):
         heads = np.concatenate([g.horizontal.head[g.horizontal.inner], g.vertical.head[g.vertical.inner]])
         deltas = np.concatenate([np.where(crossed_h.ravel()[g.horizontal.inner], -3, 1),
                                  np.where(crossed_v.ravel()[g.vertical.inner], -3, 1)])
-        values = self._least_grid.ravel().astype(np.int64)
+        values = np.zeros((R + 1) * (C + 1), dtype=np.int64)
+        values[self._boundary_points] = self._boundary_heights
         known = np.zeros_like(values, dtype=bool)
         known[self._boundary_points] = True
         h = integrate(values, known, tails, heads, deltas)
@@ -231,14 +251,15 @@ class DominoRegion(Region):
         method = self._check_method(method)
         if method == "shuffling":
             return self._shuffle(key, progress)
+        e = self._engine()
         if method == "generic":
-            heights, report = self._model.sample(1.0, key, check_order=check_order, max_start_time=max_start_time,
-                                                 progress=progress, rule=self._rule)
+            heights, report = e["model"].sample(1.0, key, check_order=check_order, max_start_time=max_start_time,
+                                                progress=progress, rule=e["rule"])
             return self._grid(heights), report, "generic"
         heights, report = _core.domino.corner_sample(
-            self._layout, self._least_grid.ravel(), self._greatest_grid.ravel(), self._rule, key[0], key[1],
+            e["layout"], e["least"].ravel(), e["greatest"].ravel(), e["rule"], key[0], key[1],
             check_order, max_start_time, progress)
-        return np.asarray(heights, dtype=np.int32).reshape(self._least_grid.shape), report, "corner grid"
+        return np.asarray(heights, dtype=np.int32).reshape(e["least"].shape), report, "corner grid"
 
     def _shuffle(self, key, progress):
         import time
@@ -266,32 +287,34 @@ class DominoRegion(Region):
 
     def _make_chain(self, key, start: StartLike, method: str) -> Tuple[Any, Callable]:
         method = self._check_method(method if method != "auto" else "cftp")
+        e = self._engine()
         if isinstance(start, str):
             if start not in ("min", "max"):
                 raise ValueError(f"start must be 'min', 'max' or a corner height array, got {start!r}")
-            grid = self._least_grid if start == "min" else self._greatest_grid
+            grid = e["least"] if start == "min" else e["greatest"]
         else:
             grid = np.asarray(start)
-            if grid.shape != self._least_grid.shape:
-                raise ValueError(f"start heights must have shape {self._least_grid.shape}, got {grid.shape}")
+            if grid.shape != e["least"].shape:
+                raise ValueError(f"start heights must have shape {e['least'].shape}, got {grid.shape}")
             if not np.issubdtype(grid.dtype, np.integer):
                 raise TypeError(f"start heights must be integers, got dtype {grid.dtype}")
             if not np.array_equal(self.heights_from_tiles(self.tiles_from_heights(grid)), np.where(self.corner_mask, grid, 0)):
                 raise ValueError("start is not a height function of this region")
-        reshape = self._least_grid.shape
+        reshape = e["least"].shape
         if method == "generic":
-            return (self._model.chain(1.0, key, self._nodes(grid), rule=self._rule), self._grid)
-        compiled = _core.domino.corner_chain(self._layout, np.ascontiguousarray(grid, np.int32).ravel(),
-                                             self._rule, key[0], key[1])
+            return (e["model"].chain(1.0, key, self._nodes(grid), rule=e["rule"]), self._grid)
+        compiled = _core.domino.corner_chain(e["layout"], np.ascontiguousarray(grid, np.int32).ravel(),
+                                             e["rule"], key[0], key[1])
         return compiled, lambda h: np.asarray(h, dtype=np.int32).reshape(reshape)
 
     def heat_bath_rule(self):
         """(generic model, 1, rule): uniform, or the two-point rule of the edge weights."""
-        return self._model, 1.0, self._rule
+        return self._engine()["model"], 1.0, self._engine()["rule"]
 
     @property
     def model(self) -> HeightModel:
-        return self._model
+        """The generic height model of the region (built on first use)."""
+        return self._engine()["model"]
 
     @property
     def n_dominoes(self) -> int:

@@ -58,14 +58,17 @@ def aztec_diamond(n: int, *, horizontal: Any = None, vertical: Any = None, verti
             raise ValueError("two_periodic_weights is a pair (a, b)")
         horizontal, vertical = two_periodic(shape, *two_periodic_weights)
         description["two_periodic_weights"] = [float(v) for v in two_periodic_weights]
-    return DominoRegion(aztec_mask(n), horizontal, vertical, class_offset=(n - 1) % 2, description=description)
+    return DominoRegion(aztec_mask(n), horizontal, vertical, class_offset=(n - 1) % 2, description=description,
+                        known_tileable=True)
 
 
 def rectangle(rows: int, columns: int, *, horizontal: Any = None, vertical: Any = None) -> DominoRegion:
     """The rows x columns rectangle (counted by the Kasteleyn / Temperley-Fisher product)."""
     rows, columns = _order(rows, "rows"), _order(columns, "columns")
+    if rows * columns % 2:
+        raise ValueError(f"a {rows}x{columns} rectangle has an odd number of cells and cannot be tiled")
     return DominoRegion(np.ones((rows, columns), bool), horizontal, vertical,
-                        description={"shape": "rectangle", "rows": rows, "columns": columns})
+                        description={"shape": "rectangle", "rows": rows, "columns": columns}, known_tileable=True)
 
 
 def from_mask(mask: Any, *, horizontal: Any = None, vertical: Any = None) -> DominoRegion:
