@@ -234,3 +234,26 @@ def test_bad_weights(kwargs, error, words):
 def test_bad_arguments(call, error):
     with pytest.raises(error):
         call()
+
+
+def test_shuffling_and_cftp_agree_on_order_30():
+    # Mean count of each domino class in the central 10x10 window, over 150 exact
+    # samples from each sampler: the difference of means, in units of its
+    # standard error, must stay within 4.5 (a false alarm about once in 10^5 per class
+    # under the normal approximation; the samples are independent by construction).
+    n, k = 30, 150
+    R = fl.domino.aztec_diamond(n)
+    window = (slice(n - 5, n + 5), slice(n - 5, n + 5))
+
+    def class_counts(method, seed):
+        out = []
+        for s in np.random.SeedSequence(seed).spawn(k):
+            S = R.sample(s, method=method)
+            inside = np.all((S.tiles[:, :, 0] >= window[0].start) & (S.tiles[:, :, 0] < window[0].stop)
+                            & (S.tiles[:, :, 1] >= window[1].start) & (S.tiles[:, :, 1] < window[1].stop), axis=1)
+            out.append(np.bincount(R.classify(S.tiles[inside]), minlength=4))
+        return np.array(out, dtype=float)
+
+    a, b = class_counts("shuffling", 1), class_counts("cftp", 2)
+    z = (a.mean(0) - b.mean(0)) / np.sqrt(a.var(0, ddof=1) / k + b.var(0, ddof=1) / k)
+    assert np.all(np.abs(z) < 4.5), z

@@ -19,6 +19,7 @@ from typing import Any
 
 from ._version import __version__
 from .checker import MonotonicityReport, check_monotone
+from .diagnostics import ChainDiagnostics, equilibrium_diagnostics
 from .errors import FrostlineWarning, RegionTooLargeError
 from .io import load, save
 from .model import HeightModel
@@ -28,6 +29,7 @@ from .seeding import SeedRecord
 
 __all__ = [
     "Chain",
+    "ChainDiagnostics",
     "FrostlineWarning",
     "HeightModel",
     "MonotonicityReport",
@@ -38,6 +40,7 @@ __all__ = [
     "SeedRecord",
     "__version__",
     "check_monotone",
+    "equilibrium_diagnostics",
     "lattice",
     "lattices",
     "load",

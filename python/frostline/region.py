@@ -84,6 +84,17 @@ class Sample:
         """Draw the configuration with matplotlib; returns the Axes."""
         return self.region.draw(self, ax=ax, **style)
 
+    def __getattr__(self, name: str) -> Any:
+        # extra views a plugin declares (e.g. ``matrix`` for square ice), computed once from the heights
+        if name.startswith("_"):
+            raise AttributeError(name)
+        views = self.region.sample_views()
+        if name not in views:
+            raise AttributeError(f"a {self.region.lattice} sample has no attribute {name!r}")
+        if name not in self._cache:
+            self._cache[name] = views[name](self.heights)
+        return self._cache[name]
+
 
 class Chain:
     """A forward heat-bath Markov chain on a region, for studying the dynamics.
@@ -187,6 +198,10 @@ class Region(abc.ABC):
 
     def record_arrays(self) -> Dict[str, np.ndarray]:
         """Arrays that, with :meth:`describe`, rebuild the region (saved in sample files)."""
+        return {}
+
+    def sample_views(self) -> Dict[str, Callable[[np.ndarray], Any]]:
+        """Named views of a sample computed from its heights (``Sample.<name>``); none by default."""
         return {}
 
     # ----- the shared API ------------------------------------------------------

@@ -15,7 +15,8 @@ from typing import Dict, List
 GROUP = "frostline.lattices"
 
 #: the built-in plugins, compiled into frostline._core
-BUILTIN: Dict[str, str] = {"domino": "frostline.domino", "lozenge": "frostline.lozenge"}
+BUILTIN: Dict[str, str] = {"domino": "frostline.domino", "lozenge": "frostline.lozenge",
+                           "square_ice": "frostline.square_ice"}
 
 _loaded: Dict[str, ModuleType] = {}
 

@@ -1,0 +1,50 @@
+"""Pictures of square ice: vertex types, the alternating sign matrix, the height function."""
+from __future__ import annotations
+
+from typing import Any, Sequence
+
+import numpy as np
+
+from . import conversions as cv
+
+#: a1, a2, b1, b2, c1, c2: a pair of greens, a pair of ambers, and the c types in ink and rose
+TYPE_TONES = ("#7fa86a", "#c8ddb0", "#d69a3c", "#f1d39a", "#2c3e57", "#c2566b")
+
+
+def draw_ice(heights: np.ndarray, kind: str = "vertices", ax: Any = None, tones: Sequence[str] = TYPE_TONES,
+             title: Any = None) -> Any:
+    """Draw ``kind`` = "vertices" (types coloured), "matrix" (+1 filled, -1 open marks) or "heights".
+
+    Vertex (i, j) sits at (j + 1/2, n - i - 1/2): the matrix as printed, row 0 on top.
+    """
+    import matplotlib.pyplot as plt
+    from matplotlib.colors import ListedColormap
+
+    if kind not in ("vertices", "matrix", "heights"):
+        raise ValueError(f"kind must be 'vertices', 'matrix' or 'heights', got {kind!r}")
+    if ax is None:
+        _, ax = plt.subplots(figsize=(6, 6))
+    h = np.asarray(heights)
+    n = h.shape[0] - 1
+    if kind == "vertices":
+        types = cv.vertex_types_from_heights(h)
+        ax.imshow(types, cmap=ListedColormap(list(tones)), vmin=-0.5, vmax=5.5, extent=(0, n, 0, n),
+                  interpolation="nearest")
+    elif kind == "heights":
+        image = ax.imshow(h, cmap="cividis", extent=(-0.5, n + 0.5, -0.5, n + 0.5), interpolation="nearest")
+        plt.colorbar(image, ax=ax, shrink=0.8, label="height")
+    else:
+        m = cv.matrix_from_heights(h)
+        i, j = np.nonzero(m == 1)
+        ax.scatter(j + 0.5, n - i - 0.5, s=max(4, 2400 / n ** 1.2), c=tones[4], marker="o", linewidths=0)
+        i, j = np.nonzero(m == -1)
+        ax.scatter(j + 0.5, n - i - 0.5, s=max(4, 2400 / n ** 1.2), facecolors="none", edgecolors=tones[5],
+                   marker="o", linewidths=1.0)
+        ax.set_xlim(0, n)
+        ax.set_ylim(0, n)
+    ax.set_aspect("equal")
+    ax.set_xticks([])
+    ax.set_yticks([])
+    if title:
+        ax.set_title(title)
+    return ax
