@@ -88,3 +88,14 @@ def test_domino_commands(tmp_path, capsys):
 
     S = fl.load(out)
     assert S.region.weights is not None and S.tiles.shape == (42, 2, 2)
+
+
+def test_square_ice_commands(tmp_path, capsys):
+    assert main(["count", "ice", "6"]) == 0
+    assert capsys.readouterr().out.strip() == "7436"  # OEIS A005130
+    for view in ("vertices", "matrix", "heights"):
+        picture = tmp_path / f"ice-{view}.png"
+        assert main(["sample", "ice", "12", "--seed", "3", "--view", view, "--picture", str(picture)]) == 0
+        assert picture.stat().st_size > 1000
+    assert main(["sample", "ice", "6", "--weights", "1", "2", "1.9"]) == 2
+    assert "non-monotone" in capsys.readouterr().err

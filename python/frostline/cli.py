@@ -28,6 +28,8 @@ EXAMPLES = """examples:
   frostline sample trapezoid 12 6 --picture trapezoid.png
   frostline sample aztec 100 --picture aztec.png
   frostline sample aztec 60 --two-periodic 1 0.5 --method shuffling
+  frostline sample ice 80 --picture ice.png --view vertices
+  frostline sample ice 40 --weights 1 1 1.414 --picture matrix.pdf --view matrix
   frostline count hexagon 6 6 6
   frostline show weighted.npz --picture weighted.svg
   frostline demo --folder pictures
@@ -72,7 +74,16 @@ def _add_shapes(parent: argparse.ArgumentParser, sampling: bool) -> None:
                                 description="Domino tilings of a region drawn as text: '#' a cell, '.' none, "
                                             "one line per row.")
     picture.add_argument("file", type=Path, help="the text file with the drawing")
-    for p in (hexagon, path, trapezoid, aztec, rectangle, picture):
+    ice = shapes.add_parser("ice", help="square ice (six-vertex model) with domain-wall boundary",
+                            description="Square ice on N x N vertices with domain-wall boundary (alternating sign "
+                                        "matrices when uniform); vertex weights A, B, C.")
+    ice.add_argument("size", type=int, help="N, the order of the matrices")
+    ice.add_argument("--weights", type=float, nargs=3, default=(1.0, 1.0, 1.0), metavar=("A", "B", "C"),
+                     help="vertex weights a, b, c (exact sampling needs c >= max(a, b)); default 1 1 1")
+    if sampling:
+        ice.add_argument("--view", default="vertices", choices=["vertices", "matrix", "heights"],
+                         help="what the picture shows (default: vertex types)")
+    for p in (hexagon, path, trapezoid, aztec, rectangle, picture, ice):
         if sampling:
             p.add_argument("--seed", type=int, default=None,
                            help="non-negative int; the same seed gives the same sample (default: fresh, printed)")
@@ -130,8 +141,10 @@ def _print_info(sample, out=None) -> None:
 
 
 def _region(args):
-    from . import domino, lozenge
+    from . import domino, lozenge, square_ice
 
+    if args.shape == "ice":
+        return square_ice.domain_wall(args.size, *args.weights)
     if args.shape == "aztec":
         return domino.aztec_diamond(args.order, vertical_weight=args.vertical_weight,
                                     two_periodic_weights=tuple(args.two_periodic) if args.two_periodic else None)
@@ -174,11 +187,12 @@ def _sample(args) -> int:
     progress.finish()
     print(f"exact sample of {region!r} in {time.perf_counter() - started:.3g} s")
     _print_info(sample)
-    _write(sample, args.picture, getattr(args, "output", None))
+    style = {"kind": args.view} if getattr(args, "view", None) else {}
+    _write(sample, args.picture, getattr(args, "output", None), style)
     return 0
 
 
-def _write(sample, picture: Optional[Path], output: Optional[Path]) -> None:
+def _write(sample, picture: Optional[Path], output: Optional[Path], style: Optional[dict] = None) -> None:
     if output is not None:
         from .io import save
 
@@ -186,7 +200,7 @@ def _write(sample, picture: Optional[Path], output: Optional[Path]) -> None:
     if picture is not None:
         from . import plot
 
-        plot.save(sample, picture)
+        plot.save(sample, picture, **(style or {}))
         print(f"picture written to {picture}")
 
 
