@@ -8,8 +8,8 @@
 // table of uint64 thresholds; without a table the two values are equally
 // likely (the uniform rule of the engine, step 2). Colour classes are
 // 2 * (i % 2) + (j % 2), in increasing order, so no two corners of a class
-// touch even diagonally; site id = rank among free corners in row-major
-// order. The generic lowering uses the same classes, ids, pattern and table,
+// touch even diagonally; every corner off the border is free, and its site id
+// is (i - 1) * (n - 1) + (j - 1), its rank in row-major order. The generic lowering uses the same classes, ids, pattern and table,
 // so both paths return the identical sample for the same key.
 #pragma once
 #include <algorithm>
@@ -23,16 +23,10 @@ namespace frostline::square_ice {
 
 class ice_sweeper {
 public:
-    // free[i * (n + 1) + j] != 0 marks free corners; table: 16 thresholds or empty (uniform).
-    ice_sweeper(std::int32_t n, std::vector<std::uint8_t> free, std::vector<std::uint64_t> table, random_key key,
-                stream s)
-        : n_(n), free_(std::move(free)), table_(std::move(table)), key_(key), stream_(s), uniform_(2) {
-        site_id_.assign(free_.size(), -1);
-        std::int64_t next = 0;
-        for (std::size_t k = 0; k < free_.size(); ++k)
-            if (free_[k]) site_id_[k] = next++;
-        n_sites_ = next;
-    }
+    // table: 16 thresholds, or empty for uniform weights.
+    ice_sweeper(std::int32_t n, std::vector<std::uint64_t> table, random_key key, stream s)
+        : n_(n), table_(std::move(table)), key_(key), stream_(s), uniform_(2),
+          n_sites_(static_cast<std::int64_t>(n - 1) * (n - 1)) {}
 
     std::int64_t n_sites() const { return n_sites_; }
     std::int64_t wide_intervals() const { return 0; }
@@ -46,15 +40,16 @@ private:
         const std::uint64_t base = sweep_base(key_, stream_, time);
         const std::int64_t w = n_ + 1;
         for (std::int32_t colour = 0; colour < 4; ++colour)
-            for (std::int32_t i = 1 + ((colour >> 1) ^ 1); i < n_; i += 2)
-                for (std::int32_t j = 1 + ((colour & 1) ^ 1); j < n_; j += 2) {
-                    const std::int64_t at = i * w + j;
-                    if (!free_[at]) continue;
-                    const auto site = static_cast<std::uint64_t>(site_id_[at]);
+            for (std::int32_t i = 1 + ((colour >> 1) ^ 1); i < n_; i += 2) {
+                const std::int32_t first = 1 + ((colour & 1) ^ 1);
+                std::uint64_t site = static_cast<std::uint64_t>(i - 1) * (n_ - 1) + (first - 1);
+                for (std::int32_t j = first; j < n_; j += 2, site += 2) {
+                    const std::int64_t at = static_cast<std::int64_t>(i) * w + j;
                     const std::uint64_t bits = site_bits(base, site);
                     a[at] = draw(a, at, w, bits);
                     if constexpr (pair) b[at] = draw(b, at, w, bits);
                 }
+            }
     }
 
     std::int32_t draw(const std::int32_t* h, std::int64_t at, std::int64_t w, std::uint64_t bits) const {
@@ -72,13 +67,11 @@ private:
     }
 
     std::int32_t n_;
-    std::vector<std::uint8_t> free_;
-    std::vector<std::int64_t> site_id_;
     std::vector<std::uint64_t> table_;
     random_key key_;
     stream stream_;
     uniform_rule uniform_;
-    std::int64_t n_sites_ = 0;
+    std::int64_t n_sites_;
 };
 
 }  // namespace frostline::square_ice

@@ -11,28 +11,30 @@ namespace {
 
 using square_ice::ice_sweeper;
 
-ice_sweeper make_sweeper(std::int32_t n, const py::array_t<std::uint8_t, py::array::c_style | py::array::forcecast>& free,
-                         const py::array_t<std::uint64_t, py::array::c_style | py::array::forcecast>& table,
-                         std::uint64_t word0, std::uint64_t word1, stream s) {
+using table_array = py::array_t<std::uint64_t, py::array::c_style | py::array::forcecast>;
+
+ice_sweeper make_sweeper(std::int32_t n, const table_array& table, std::uint64_t word0, std::uint64_t word1, stream s) {
     if (n < 1) throw invalid_model("n must be at least 1");
-    if (free.size() != static_cast<py::ssize_t>(n + 1) * (n + 1))
-        throw invalid_model("free must mark each of the (n + 1)^2 corners");
     if (table.size() != 0 && table.size() != 16) throw invalid_model("the weight table has 16 entries (or none)");
-    return ice_sweeper(n, std::vector<std::uint8_t>(free.data(), free.data() + free.size()),
-                       std::vector<std::uint64_t>(table.data(), table.data() + table.size()), make_key(word0, word1), s);
+    return ice_sweeper(n, std::vector<std::uint64_t>(table.data(), table.data() + table.size()),
+                       make_key(word0, word1), s);
+}
+
+void check_size(std::int32_t n, const int_array& a, const char* what) {
+    if (a.size() != static_cast<py::ssize_t>(n + 1) * (n + 1))
+        throw invalid_model(std::string(what) + " needs one height per corner ((n + 1)^2 entries)");
 }
 
 }  // namespace
 
 void register_square_ice(py::module_& parent) {
     auto m = parent.def_submodule("square_ice", "Kernel of the square_ice plugin.");
-    m.def("ice_sample", [](std::int32_t n, py::array_t<std::uint8_t, py::array::c_style | py::array::forcecast> free,
-                           py::array_t<std::uint64_t, py::array::c_style | py::array::forcecast> table,
-                           const int_array& least, const int_array& greatest, std::uint64_t word0, std::uint64_t word1,
-                           bool check_order, std::int64_t max_start_time, py::object progress) {
-        auto sweeper = make_sweeper(n, free, table, word0, word1, stream::coupling_from_the_past);
-        if (least.size() != free.size() || greatest.size() != free.size())
-            throw invalid_model("least and greatest need one height per corner");
+    m.def("ice_sample", [](std::int32_t n, const table_array& table, const int_array& least,
+                           const int_array& greatest, std::uint64_t word0, std::uint64_t word1, bool check_order,
+                           std::int64_t max_start_time, py::object progress) {
+        auto sweeper = make_sweeper(n, table, word0, word1, stream::coupling_from_the_past);
+        check_size(n, least, "least");
+        check_size(n, greatest, "greatest");
         const auto top = to_vector(greatest), bottom = to_vector(least);
         const auto control = make_control(progress, max_start_time, check_order);
         run_report report;
@@ -42,17 +44,16 @@ void register_square_ice(py::module_& parent) {
             out = monotone_cftp(sweeper, top, bottom, control, report);
         }
         return py::make_tuple(to_array(out), report_dict(report));
-    }, py::arg("n"), py::arg("free"), py::arg("table"), py::arg("least"), py::arg("greatest"), py::arg("key0"),
+    }, py::arg("n"), py::arg("table"), py::arg("least"), py::arg("greatest"), py::arg("key0"),
        py::arg("key1"), py::arg("check_order") = false, py::arg("max_start_time") = std::int64_t(1) << 40,
        py::arg("progress") = py::none(), "Exact square-ice heights by CFTP with the fast kernel: (heights, report).");
-    m.def("ice_chain", [](std::int32_t n, py::array_t<std::uint8_t, py::array::c_style | py::array::forcecast> free,
-                          py::array_t<std::uint64_t, py::array::c_style | py::array::forcecast> table,
-                          const int_array& start, std::uint64_t word0, std::uint64_t word1, std::int64_t time) {
-        auto sweeper = make_sweeper(n, free, table, word0, word1, stream::forward_chain);
-        if (start.size() != free.size()) throw invalid_model("start needs one height per corner");
+    m.def("ice_chain", [](std::int32_t n, const table_array& table, const int_array& start, std::uint64_t word0,
+                          std::uint64_t word1, std::int64_t time) {
+        auto sweeper = make_sweeper(n, table, word0, word1, stream::forward_chain);
+        check_size(n, start, "start");
         auto sweep = [sweeper](std::int32_t* h, std::int64_t t) { sweeper.sweep(h, t); };
         return std::make_shared<forward_chain>(sweep, sweeper.n_sites(), to_vector(start), time);
-    }, py::arg("n"), py::arg("free"), py::arg("table"), py::arg("start"), py::arg("key0"), py::arg("key1"),
+    }, py::arg("n"), py::arg("table"), py::arg("start"), py::arg("key0"), py::arg("key1"),
        py::arg("time") = 0);
 }
 

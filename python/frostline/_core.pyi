@@ -80,9 +80,9 @@ class domino:
 
 class square_ice:
     @staticmethod
-    def ice_sample(n: int, free: npt.ArrayLike, table: npt.ArrayLike, least: IntArray, greatest: IntArray, key0: int,
+    def ice_sample(n: int, table: npt.ArrayLike, least: IntArray, greatest: IntArray, key0: int,
                    key1: int, check_order: bool = ..., max_start_time: int = ...,
                    progress: ProgressHook = ...) -> Tuple[IntArray, dict]: ...
     @staticmethod
-    def ice_chain(n: int, free: npt.ArrayLike, table: npt.ArrayLike, start: IntArray, key0: int, key1: int,
+    def ice_chain(n: int, table: npt.ArrayLike, start: IntArray, key0: int, key1: int,
                   time: int = ...) -> ForwardChain: ...

@@ -138,7 +138,6 @@ class SquareIceRegion(Region):
                                   node_label=corner_name)
         least, greatest = self._model.extremes()  # no filling of this boundary: ValueError naming the corner
         self._node = node
-        self._free = interior.astype(np.uint8)
         self._least = self._grid(least)
         self._greatest = self._grid(greatest)
         self._table = np.zeros(0, dtype=np.uint64) if self.uniform else weight_table(self.a, self.b, self.c)
@@ -182,7 +181,7 @@ class SquareIceRegion(Region):
             heights, report_ = self._model.sample(1.0, key, check_order=check_order, max_start_time=max_start_time,
                                                   progress=progress, rule=self._rule)
             return self._grid(heights), report_, "generic"
-        heights, report_ = _core.square_ice.ice_sample(self.n, self._free, self._table, self._least.ravel(),
+        heights, report_ = _core.square_ice.ice_sample(self.n, self._table, self._least.ravel(),
                                                         self._greatest.ravel(), key[0], key[1], check_order,
                                                         max_start_time, progress)
         return np.asarray(heights, dtype=np.int32).reshape(self._least.shape), report_, "corner grid"
@@ -207,7 +206,7 @@ class SquareIceRegion(Region):
             nodes = np.empty(self._model.n_nodes, dtype=np.int64)
             nodes[self._node] = np.asarray(grid).ravel()
             return self._model.chain(1.0, key, nodes, rule=self._rule), self._grid
-        compiled = _core.square_ice.ice_chain(self.n, self._free, self._table,
+        compiled = _core.square_ice.ice_chain(self.n, self._table,
                                               np.ascontiguousarray(grid, np.int32).ravel(), key[0], key[1])
         return compiled, lambda h: np.asarray(h, dtype=np.int32).reshape(shape)
 
