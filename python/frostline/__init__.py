@@ -49,10 +49,10 @@ __all__ = [
 
 
 def __getattr__(name: str) -> Any:
-    if name == "plot":
+    if name in ("plot", "exact", "analysis"):
         import importlib
 
-        return importlib.import_module(".plot", __name__)
+        return importlib.import_module(f".{name}", __name__)
     if name in lattices():
         return lattice(name)
     raise AttributeError(f"module 'frostline' has no attribute {name!r}")

@@ -8,7 +8,7 @@ from __future__ import annotations
 
 import abc
 from dataclasses import asdict, dataclass, field
-from typing import Any, Callable, Dict, Tuple, Union
+from typing import Any, Callable, Dict, List, Optional, Tuple, Union
 
 import numpy as np
 
@@ -200,6 +200,22 @@ class Region(abc.ABC):
         """Arrays that, with :meth:`describe`, rebuild the region (saved in sample files)."""
         return {}
 
+    def heights_from_model(self, node_heights: np.ndarray) -> np.ndarray:
+        """Heights in this lattice's convention from the generic model's node heights."""
+        raise NotImplementedError(f"{type(self).__name__} does not map generic heights")
+
+    def configuration_weight(self, heights: np.ndarray) -> Any:
+        """The (unnormalised, exact where possible) weight of the configuration with these heights."""
+        return 1
+
+    def dimer_system(self) -> Dict[str, Any]:
+        """Kasteleyn matrix and tile positions for exact local statistics (dimer models only)."""
+        raise ValueError(f"{self.lattice} regions have no Kasteleyn matrix; exact local statistics need a dimer model")
+
+    def tile_centres(self, tiles: np.ndarray) -> np.ndarray:
+        """Plane coordinates (k, 2) of the centres of tiles."""
+        raise NotImplementedError(f"{type(self).__name__} does not place tiles in the plane")
+
     def sample_views(self) -> Dict[str, Callable[[np.ndarray], Any]]:
         """Named views of a sample computed from its heights (``Sample.<name>``); none by default."""
         return {}
@@ -236,6 +252,50 @@ class Region(abc.ABC):
                                                   max_start_time, progress)
         info = SampleInfo(method="cftp", kernel=kernel, seed=record, **report)
         return Sample(region=self, heights=heights, info=info)
+
+    def samples(self, k: int, seed: SeedLike = None, *, threads: Optional[int] = None, method: str = "auto",
+                max_start_time: int = 2**40) -> List[Sample]:
+        """``k`` independent exact samples; member i is drawn from child i of the seed's SeedSequence.
+
+        Runs on ``threads`` threads (default: the machine's cores) with the GIL
+        released inside each sample, so it scales with cores; the result is the
+        same list for any thread count. Ctrl-C stops every worker at its next
+        engine check and raises KeyboardInterrupt; no partial list is returned.
+        """
+        import os
+        import threading
+        from concurrent.futures import ThreadPoolExecutor, wait
+
+        k = _check_count(k, "k")
+        if threads is None:
+            threads = os.cpu_count() or 1
+        threads = _check_count(threads, "threads")
+        if threads < 1:
+            raise ValueError("threads must be at least 1")
+        children = normalise_seed(seed).spawn(k)
+        stop = threading.Event()
+
+        def hook(*_: Any) -> None:
+            if stop.is_set():  # raised inside the engine's poll: the sample is abandoned
+                raise KeyboardInterrupt
+
+        def one(child):
+            return self.sample(child, method=method, max_start_time=max_start_time, progress=hook)
+
+        pool = ThreadPoolExecutor(max_workers=min(threads, max(k, 1)))
+        try:
+            futures = [pool.submit(one, c) for c in children]
+            pending = set(futures)
+            while pending:
+                _, pending = wait(pending, timeout=0.2)
+            return [f.result() for f in futures]
+        except BaseException:
+            stop.set()
+            for f in futures:
+                f.cancel()
+            raise
+        finally:
+            pool.shutdown(wait=True)
 
     def chain(self, seed: SeedLike = None, start: StartLike = "min", *, method: str = "auto") -> Chain:
         """A forward heat-bath chain from ``"min"``, ``"max"`` or a given height array."""

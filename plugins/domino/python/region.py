@@ -307,6 +307,66 @@ class DominoRegion(Region):
                                              e["rule"], key[0], key[1])
         return compiled, lambda h: np.asarray(h, dtype=np.int32).reshape(reshape)
 
+    def heights_from_model(self, node_heights: np.ndarray) -> np.ndarray:
+        return self._grid(node_heights)
+
+    def configuration_weight(self, heights: np.ndarray):
+        """Product of the dominoes' weights (exact Fractions of the float weights; 1 when uniform)."""
+        from fractions import Fraction
+
+        if self.weights is None:
+            return 1
+        horizontal, vertical = self.weights
+        w = Fraction(1)
+        for (r1, c1), (r2, c2) in self.tiles_from_heights(heights).tolist():
+            w *= Fraction(float(horizontal[r1, c1] if r1 == r2 else vertical[r1, c1]))
+        return w
+
+    def dimer_system(self) -> dict:
+        """Kasteleyn matrix with weight 1 on horizontal and i on vertical dominoes, times the edge weights
+        (Kenyon 1997); rows black cells, columns white cells (row-major)."""
+        R, C = self.mask.shape
+        r, c = np.nonzero(self.mask)
+        black = (r + c) % 2 == 0
+        index = -np.ones((R, C), dtype=np.int64)
+        index[r[black], c[black]] = np.arange(black.sum())
+        index[r[~black], c[~black]] = np.arange((~black).sum())
+        horizontal, vertical = self.weights if self.weights is not None else (np.ones((R, C - 1)), np.ones((R - 1, C)))
+        rows, cols, tiles, values = [], [], [], []
+        for dr, dc in ((0, 1), (0, -1), (1, 0), (-1, 0)):
+            rb, cb = r[black], c[black]
+            rw, cw = rb + dr, cb + dc
+            ok = (rw >= 0) & (rw < R) & (cw >= 0) & (cw < C)
+            ok[ok] = self.mask[rw[ok], cw[ok]]
+            rb, cb, rw, cw = rb[ok], cb[ok], rw[ok], cw[ok]
+            top, left = np.minimum(rb, rw), np.minimum(cb, cw)
+            if dr:
+                values.append(1j * vertical[top, cb])
+            else:
+                values.append(horizontal[rb, left].astype(complex))
+            rows.append(index[rb, cb])
+            cols.append(index[rw, cw])
+            first = np.where((rb < rw) | (cb < cw), 0, 1)
+            cells = np.stack([np.stack([rb, cb], 1), np.stack([rw, cw], 1)], 1)
+            tiles.append(np.where(first[:, None, None] == 0, cells, cells[:, ::-1]))
+        rows_, cols_ = np.concatenate(rows), np.concatenate(cols)
+        matrix = np.zeros((int(black.sum()), int((~black).sum())), dtype=complex)
+        matrix[rows_, cols_] = np.concatenate(values)
+        return {"matrix": matrix, "rows": rows_, "cols": cols_, "tiles": np.concatenate(tiles).astype(np.int64)}
+
+    @property
+    def plane_origin(self) -> Tuple[float, float]:
+        """Cell (r, c) has its centre at (c + 1/2 - x0, y0 - r - 1/2): the centred frame for the Aztec diamond."""
+        if self.is_aztec_diamond:
+            n = self._description["order"]
+            return (float(n), float(n))
+        return (0.0, 0.0)
+
+    def tile_centres(self, tiles: np.ndarray) -> np.ndarray:
+        t = np.asarray(tiles, dtype=float).reshape(-1, 2, 2).mean(axis=1)
+        x0, y0 = self.plane_origin
+        return np.stack([t[:, 1] + 0.5 - x0, y0 - t[:, 0] - 0.5], axis=1)
+
     def heat_bath_rule(self):
         """(generic model, 1, rule): uniform, or the two-point rule of the edge weights."""
         return self._engine()["model"], 1.0, self._engine()["rule"]

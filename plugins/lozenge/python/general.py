@@ -28,7 +28,7 @@ from frostline.region import Region, Sample, StartLike
 from .drawing import draw_lozenges
 from .geometry import EDGE_ENDS, PARTNER, TriangleGrid
 from .hexagon import QLike, _weight
-from .tiles import TILE_CLASSES
+from .tiles import TILE_CLASSES, lozenge_centres, lozenge_dimer_system
 
 KERNELS = ("auto", "generic")
 
@@ -215,6 +215,27 @@ class LozengeRegion(Region):
         ok_edges = np.all(nodes[c[:, 1]] - nodes[c[:, 0]] <= c[:, 2])
         ok_residue = np.all((nodes[: self._model.n_sites] - self._model.residues) % 3 == 0)
         return bool(ok_bounds and ok_edges and ok_residue)
+
+    def heights_from_model(self, node_heights: np.ndarray) -> np.ndarray:
+        return self._heights_from_nodes(node_heights)
+
+    def configuration_weight(self, heights: np.ndarray):
+        """q ** (cubes above the least height function), exactly."""
+        least = self._heights_from_nodes(self._model.extremes()[0])
+        cubes = int((np.asarray(heights, dtype=np.int64) - least)[self.vertex_mask].sum()) // 3
+        return self._q_exact ** cubes
+
+    def dimer_system(self) -> dict:
+        """Kasteleyn (plain adjacency) matrix of the triangles (uniform weights only)."""
+        if self.q != 1.0:
+            raise ValueError("exact local statistics need edge weights; q ** volume is not one (use q = 1)")
+        return lozenge_dimer_system(self.triangles)
+
+    def tile_centres(self, tiles: np.ndarray) -> np.ndarray:
+        return lozenge_centres(tiles)
+
+    def classify(self, tiles: np.ndarray) -> np.ndarray:
+        return np.asarray(tiles)[:, 2].astype(np.int8)
 
     def heat_bath_rule(self):
         """(generic model, q, None): the q^volume heat bath on lattice-point heights."""

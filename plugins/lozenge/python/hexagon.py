@@ -14,7 +14,7 @@ from frostline.region import Region, Sample, StartLike
 
 from . import counts
 from .drawing import draw_lozenges
-from .tiles import TILE_CLASSES, hexagon_corners, tiles_of_plane_partition
+from .tiles import TILE_CLASSES, hexagon_corners, lozenge_centres, tiles_of_plane_partition
 
 QLike = Union[float, int, Fraction]
 
@@ -109,6 +109,27 @@ class HexagonRegion(Region):
             r, s = np.divmod(np.arange(n), max(b, 1))
             self._model = HeightModel(n, np.array([c, 0]), constraints, np.zeros(n), 1, (r + s) % 2)
         return self._model
+
+    def heights_from_model(self, node_heights: np.ndarray) -> np.ndarray:
+        return self._cells(node_heights)
+
+    def configuration_weight(self, heights: np.ndarray) -> Fraction:
+        """q ** volume, exactly (q at its exact value)."""
+        return self._q_exact ** int(np.asarray(heights).sum())
+
+    def dimer_system(self) -> dict:
+        """Kasteleyn matrix of the hexagon's triangles (uniform weights only)."""
+        if self.q != 1.0:
+            raise ValueError("exact local statistics need edge weights; q ** volume is not one (use q = 1)")
+        from .shapes import hexagon_region
+
+        return hexagon_region(self.a, self.b, self.c).dimer_system()
+
+    def tile_centres(self, tiles: np.ndarray) -> np.ndarray:
+        return lozenge_centres(tiles)
+
+    def classify(self, tiles: np.ndarray) -> np.ndarray:
+        return np.asarray(tiles)[:, 2].astype(np.int8)
 
     def heat_bath_rule(self):
         """(generic model, q, None): the q^volume heat bath on plane partitions."""

@@ -102,3 +102,35 @@ def _faces(k, l, lower, upper, make) -> np.ndarray:
 def hexagon_corners(a: int, b: int, c: int) -> np.ndarray:
     """Corners of the a, b, c hexagon in lattice coordinates, counter-clockwise from (0, 0)."""
     return np.array([(0, 0), (a, 0), (a, b), (a - c, b + c), (-c, b + c), (-c, c)], dtype=np.int64)
+
+
+def lozenge_centres(tiles: np.ndarray) -> np.ndarray:
+    """Plane coordinates (k, 2) of lozenge centres."""
+    return lozenge_polygons(tiles).mean(axis=1)
+
+
+def lozenge_dimer_system(triangles: np.ndarray) -> dict:
+    """The 0/1 Kasteleyn (adjacency) matrix of a region of triangles and the tile of each entry.
+
+    Rows: up triangles, columns: down triangles (each sorted by (y, x)); for
+    lozenges every face of the dual graph is a hexagon, so no signs are needed
+    (Kasteleyn 1967).
+    """
+    tri = np.asarray(triangles)
+    up = tri[tri[:, 2] == 0]
+    down = tri[tri[:, 2] == 1]
+    up = up[np.lexsort((up[:, 0], up[:, 1]))]
+    down = down[np.lexsort((down[:, 0], down[:, 1]))]
+    column = {(int(x), int(y)): k for k, (x, y, _) in enumerate(down)}
+    rows, cols, tiles = [], [], []
+    for r, (x, y, _) in enumerate(up):
+        for t, (dx, dy) in enumerate(DOWN_PARTNER):
+            k = column.get((int(x + dx), int(y + dy)))
+            if k is not None:
+                rows.append(r)
+                cols.append(k)
+                tiles.append((int(x), int(y), t))
+    matrix = np.zeros((len(up), len(down)))
+    matrix[rows, cols] = 1.0
+    return {"matrix": matrix, "rows": np.array(rows, dtype=np.int64), "cols": np.array(cols, dtype=np.int64),
+            "tiles": np.array(tiles, dtype=np.int64).reshape(-1, 3)}

@@ -153,6 +153,20 @@ class SquareIceRegion(Region):
     def _grid(self, node_heights: np.ndarray) -> np.ndarray:
         return np.asarray(node_heights)[self._node].reshape(self.n + 1, self.n + 1).astype(np.int32)
 
+    def heights_from_model(self, node_heights: np.ndarray) -> np.ndarray:
+        return self._grid(node_heights)
+
+    def configuration_weight(self, heights: np.ndarray):
+        """Product of vertex weights (exact Fractions of a, b, c)."""
+        types = cv.vertex_types_from_heights(heights)
+        counts = np.bincount(types.ravel(), minlength=6)
+        a, b, c = Fraction(self.a), Fraction(self.b), Fraction(self.c)
+        return a ** int(counts[0] + counts[1]) * b ** int(counts[2] + counts[3]) * c ** int(counts[4] + counts[5])
+
+    def tile_centres(self, tiles: np.ndarray) -> np.ndarray:
+        t = np.asarray(tiles, dtype=float)
+        return np.stack([t[:, 1] + 0.5, self.n - t[:, 0] - 0.5], axis=1)
+
     # ----- exactness ---------------------------------------------------------------------
     def heat_bath_rule(self):
         """(generic model, 1, rule): uniform, or the context rule of the vertex weights."""

@@ -1,5 +1,18 @@
-"""Exact methods usable with any lattice: integer determinants, enumeration of tiny regions."""
-from .determinant import integer_determinant
-from .enumeration import EnumerationTooLarge, enumerate_heights
+"""Exact methods for any lattice: enumeration of tiny regions, exact determinants, local statistics.
 
-__all__ = ["EnumerationTooLarge", "enumerate_heights", "integer_determinant"]
+- ``enumerate(region)``: every configuration (height arrays), from the generic model
+- ``distribution(region)``: configurations with exact probabilities under the region's weights
+- ``integer_determinant(matrix)``: exact determinants (modular, banded elimination)
+- ``placement_probabilities(region)``: (tiles, p) from the inverse Kasteleyn matrix
+- ``class_densities(region)``: the same grouped by tile class, with tile centres
+- ``formulas``: the closed forms (MacMahon, Aztec, rectangles, ASM, Izergin-Korepin)
+"""
+from . import formulas
+from .determinant import integer_determinant
+from .enumeration import EnumerationTooLarge, distribution, enumerate_configurations, enumerate_heights
+from .local_statistics import class_densities, placement_probabilities
+
+enumerate = enumerate_configurations  # noqa: A001 - the public name of the contract (fl.exact.enumerate)
+
+__all__ = ["EnumerationTooLarge", "class_densities", "distribution", "enumerate", "enumerate_configurations",
+           "enumerate_heights", "formulas", "integer_determinant", "placement_probabilities"]

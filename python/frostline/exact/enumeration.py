@@ -70,3 +70,23 @@ def enumerate_heights(model: HeightModel, cap: int = 200_000) -> np.ndarray:
     out = np.array(found, dtype=np.int32)
     order = np.lexsort(out[:, :n].T[::-1]) if n else np.arange(len(out))
     return out[order]
+
+
+def enumerate_configurations(region, cap: int = 200_000) -> List[np.ndarray]:
+    """Every configuration of a tiny region of any plugin, as height arrays in the region's convention.
+
+    Built only from the generic height model (the distributive lattice walked
+    by local moves from the least element). Raises EnumerationTooLarge above ``cap``.
+    """
+    model, _, _ = region.heat_bath_rule()
+    return [region.heights_from_model(h) for h in enumerate_heights(model, cap)]
+
+
+def distribution(region, cap: int = 200_000):
+    """(configurations, exact probabilities as Fractions) under the region's weights."""
+    from fractions import Fraction
+
+    configurations = enumerate_configurations(region, cap)
+    weights = [Fraction(region.configuration_weight(h)) for h in configurations]
+    total = sum(weights, Fraction(0))
+    return configurations, [w / total for w in weights]
