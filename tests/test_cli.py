@@ -99,3 +99,12 @@ def test_square_ice_commands(tmp_path, capsys):
         assert picture.stat().st_size > 1000
     assert main(["sample", "ice", "6", "--weights", "1", "2", "1.9"]) == 2
     assert "non-monotone" in capsys.readouterr().err
+
+
+def test_density_pictures(tmp_path, capsys):
+    for argv in (["density", "hexagon", "6", "5", "4"], ["density", "aztec", "8"]):
+        picture = tmp_path / f"{argv[1]}.png"
+        assert main(argv + ["--picture", str(picture)]) == 0
+        assert picture.stat().st_size > 5000
+    assert main(["density", "ice", "4", "--picture", str(tmp_path / "ice.png")]) == 2
+    assert "no Kasteleyn matrix" in capsys.readouterr().err

@@ -31,6 +31,7 @@ EXAMPLES = """examples:
   frostline sample ice 80 --picture ice.png --view vertices
   frostline sample ice 40 --weights 1 1 1.414 --picture matrix.pdf --view matrix
   frostline count hexagon 6 6 6
+  frostline density aztec 30 --picture aztec-densities.png
   frostline show weighted.npz --picture weighted.svg
   frostline demo --folder pictures
 
@@ -108,6 +109,12 @@ def _parser() -> argparse.ArgumentParser:
     _add_shapes(sample, sampling=True)
     count = commands.add_parser("count", help="print the exact number of tilings of a region")
     _add_shapes(count, sampling=False)
+    density = commands.add_parser("density", help="draw the exact density of each tile class of a region",
+                                  description="Exact placement probabilities (inverse Kasteleyn matrix) drawn as one "
+                                              "panel per tile class; lozenge regions with q = 1 and domino regions.")
+    _add_shapes(density, sampling=False)
+    for p in density._subparsers._group_actions[0].choices.values():  # every shape takes --picture here
+        p.add_argument("--picture", type=Path, required=True, help="the picture to write (.png, .svg or .pdf)")
     show = commands.add_parser("show", help="print the record of a saved sample and optionally draw it")
     show.add_argument("file", type=Path, help="a .npz file written by 'frostline sample ... --output'")
     show.add_argument("--picture", type=Path, default=None, help="write a picture (.png, .svg or .pdf)")
@@ -211,6 +218,18 @@ def _count(args) -> int:
     return 0
 
 
+def _density(args) -> int:
+    from . import plot
+    from .exact import class_densities
+
+    _check_outputs(args.picture, None)
+    region = _region(args)
+    densities = class_densities(region)
+    plot.save_densities(densities, args.picture, title=repr(region))
+    print(f"exact densities of {region!r} written to {args.picture}")
+    return 0
+
+
 def _show(args) -> int:
     from .io import load
 
@@ -244,7 +263,7 @@ def _demo(args) -> int:
 def main(argv: Optional[Sequence[str]] = None) -> int:
     """Entry point of the ``frostline`` command; returns the exit status."""
     args = _parser().parse_args(list(argv) if argv is not None else None)
-    handlers = {"sample": _sample, "count": _count, "show": _show, "demo": _demo}
+    handlers = {"sample": _sample, "count": _count, "density": _density, "show": _show, "demo": _demo}
     try:
         return handlers[args.command](args)
     except KeyboardInterrupt:

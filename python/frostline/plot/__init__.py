@@ -38,3 +38,33 @@ def save(sample: Any, path: str, *, size: float = 6.0, dpi: int = 200, title: Op
     finally:
         plt.close(fig)
     return str(path)
+
+
+def save_densities(densities: dict, path: str, *, title: Optional[str] = None, dpi: int = 200) -> str:
+    """One panel per tile class: tile centres coloured by their exact probability (0 to 1).
+
+    ``densities`` maps class name to (centres (k, 2), probabilities (k,)), as
+    :func:`frostline.exact.class_densities` returns.
+    """
+    ext = os.path.splitext(str(path))[1].lower()
+    if ext not in FORMATS:
+        raise ValueError(f"picture format {ext or '(none)'!r} is not supported; use one of {', '.join(FORMATS)}")
+    plt = _pyplot()
+    k = len(densities)
+    fig, axes = plt.subplots(1, k, figsize=(3.6 * k, 3.8), squeeze=False)
+    image = None
+    for ax, (name, (centres, p)) in zip(axes[0], densities.items()):
+        size = max(2.0, 3000.0 / max(len(p), 1))
+        image = ax.scatter(centres[:, 0], centres[:, 1], c=p, s=size, cmap="magma", vmin=0, vmax=1, linewidths=0)
+        ax.set_title(name)
+        ax.set_aspect("equal")
+        ax.set_axis_off()
+    if image is not None:
+        fig.colorbar(image, ax=list(axes[0]), shrink=0.8, label="probability")
+    if title:
+        fig.suptitle(title, fontsize=9)
+    try:
+        fig.savefig(path, dpi=dpi, bbox_inches="tight")
+    finally:
+        plt.close(fig)
+    return str(path)
