@@ -8,7 +8,8 @@
 // table of uint64 thresholds; without a table the two values are equally
 // likely (the uniform rule of the engine, step 2). Colour classes are
 // 2 * (i % 2) + (j % 2), in increasing order, so no two corners of a class
-// touch even diagonally; every corner off the border is free, and its site id
+// touch even diagonally (uniform weights read no diagonals: then two classes,
+// (i + j) % 2, fewer passes); every corner off the border is free, and its site id
 // is (i - 1) * (n - 1) + (j - 1), its rank in row-major order. The generic lowering uses the same classes, ids, pattern and table,
 // so both paths return the identical sample for the same key.
 #pragma once
@@ -39,6 +40,20 @@ private:
     void run(std::int32_t* a, std::int32_t* b, std::int64_t time) const {
         const std::uint64_t base = sweep_base(key_, stream_, time);
         const std::int64_t w = n_ + 1;
+        if (table_.empty()) {  // uniform: two classes, (i + j) % 2, as the generic lowering uses then
+            for (std::int32_t parity = 0; parity < 2; ++parity)
+                for (std::int32_t i = 1; i < n_; ++i) {
+                    const std::int32_t first = 1 + ((i + 1 + parity) & 1);
+                    std::uint64_t site = static_cast<std::uint64_t>(i - 1) * (n_ - 1) + (first - 1);
+                    for (std::int32_t j = first; j < n_; j += 2, site += 2) {
+                        const std::int64_t at = static_cast<std::int64_t>(i) * w + j;
+                        const std::uint64_t bits = site_bits(base, site);
+                        a[at] = draw(a, at, w, bits);
+                        if constexpr (pair) b[at] = draw(b, at, w, bits);
+                    }
+                }
+            return;
+        }
         for (std::int32_t colour = 0; colour < 4; ++colour)
             for (std::int32_t i = 1 + ((colour >> 1) ^ 1); i < n_; i += 2) {
                 const std::int32_t first = 1 + ((colour & 1) ^ 1);

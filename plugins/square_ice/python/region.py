@@ -132,7 +132,8 @@ class SquareIceRegion(Region):
         ii, jj = ids // w, ids % w
         parity = int(self.boundary[0, 0]) % 2
         residues = (ii + jj + parity) % 2
-        colour = 2 * (ii % 2) + (jj % 2)
+        # the weighted rule reads diagonal corners: four classes; uniform weights need two
+        colour = (ii + jj) % 2 if self.uniform else 2 * (ii % 2) + (jj % 2)
         corner_name = lambda k: f"corner ({int(np.concatenate([ids, border])[k]) // w}, {int(np.concatenate([ids, border])[k]) % w})"  # noqa: E731
         self._model = HeightModel(len(ids), self.boundary.ravel()[border], constraints, residues, 2, colour,
                                   node_label=corner_name)
