@@ -187,3 +187,14 @@ def test_ensemble_arguments():
         R.samples(3, seed=1, threads=0)
     with pytest.raises(TypeError):
         R.samples(2.5, seed=1)
+
+
+def test_log_partition_functions():
+    # Float logs against the exact values: MacMahon (OEIS A008793) and (1 + a^2)^(n(n+1)/2)
+    assert fl.exact.log_partition_function(fl.lozenge.hexagon(12, 10, 8)) == pytest.approx(
+        math.log(fl.lozenge.hexagon(12, 10, 8).count()), rel=1e-10)
+    n, a = 20, 1.5
+    assert fl.exact.log_partition_function(fl.domino.aztec_diamond(n, vertical_weight=a)) == pytest.approx(
+        n * (n + 1) / 2 * math.log(1 + a * a), rel=1e-10)
+    # domino entropy per cell tends to G/pi = 0.2915609 (REFERENCES.md section 1); 40 x 40 is close
+    assert fl.exact.log_partition_function(fl.domino.rectangle(40, 40)) / 1600 == pytest.approx(0.2915609, abs=0.01)

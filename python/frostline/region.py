@@ -212,6 +212,10 @@ class Region(abc.ABC):
         """Kasteleyn matrix and tile positions for exact local statistics (dimer models only)."""
         raise ValueError(f"{self.lattice} regions have no Kasteleyn matrix; exact local statistics need a dimer model")
 
+    def kasteleyn_real(self) -> np.ndarray:
+        """A real Kasteleyn matrix whose |determinant| is the weighted tiling count (dimer models only)."""
+        raise ValueError(f"{self.lattice} regions have no Kasteleyn matrix; exact local statistics need a dimer model")
+
     def tile_centres(self, tiles: np.ndarray) -> np.ndarray:
         """Plane coordinates (k, 2) of the centres of tiles."""
         raise NotImplementedError(f"{type(self).__name__} does not place tiles in the plane")

@@ -362,6 +362,12 @@ class DominoRegion(Region):
             return (float(n), float(n))
         return (0.0, 0.0)
 
+    def kasteleyn_real(self) -> np.ndarray:
+        from .counts import kasteleyn_matrix
+
+        h, v = self.weights if self.weights is not None else (None, None)
+        return np.asarray(kasteleyn_matrix(self.mask, h, v), dtype=float)
+
     def tile_centres(self, tiles: np.ndarray) -> np.ndarray:
         t = np.asarray(tiles, dtype=float).reshape(-1, 2, 2).mean(axis=1)
         x0, y0 = self.plane_origin

@@ -231,6 +231,11 @@ class LozengeRegion(Region):
             raise ValueError("exact local statistics need edge weights; q ** volume is not one (use q = 1)")
         return lozenge_dimer_system(self.triangles)
 
+    def kasteleyn_real(self) -> np.ndarray:
+        if self.q != 1.0:
+            raise ValueError("q ** volume is not an edge weighting; use q = 1")
+        return self.adjacency_matrix().astype(float)
+
     def tile_centres(self, tiles: np.ndarray) -> np.ndarray:
         return lozenge_centres(tiles)
 

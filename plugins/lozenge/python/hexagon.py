@@ -125,6 +125,13 @@ class HexagonRegion(Region):
 
         return hexagon_region(self.a, self.b, self.c).dimer_system()
 
+    def kasteleyn_real(self) -> np.ndarray:
+        if self.q != 1.0:
+            raise ValueError("q ** volume is not an edge weighting; use q = 1 (or partition_function())")
+        from .shapes import hexagon_region
+
+        return hexagon_region(self.a, self.b, self.c).kasteleyn_real()
+
     def tile_centres(self, tiles: np.ndarray) -> np.ndarray:
         return lozenge_centres(tiles)
 

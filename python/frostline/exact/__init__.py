@@ -5,14 +5,16 @@
 - ``integer_determinant(matrix)``: exact determinants (modular, banded elimination)
 - ``placement_probabilities(region)``: (tiles, p) from the inverse Kasteleyn matrix
 - ``class_densities(region)``: the same grouped by tile class, with tile centres
+- ``log_partition_function(region)``: log of the (weighted) tiling count in floating point
 - ``formulas``: the closed forms (MacMahon, Aztec, rectangles, ASM, Izergin-Korepin)
 """
 from . import formulas
 from .determinant import integer_determinant
 from .enumeration import EnumerationTooLarge, distribution, enumerate_configurations, enumerate_heights
-from .local_statistics import class_densities, placement_probabilities
+from .local_statistics import class_densities, log_partition_function, placement_probabilities
 
 enumerate = enumerate_configurations  # noqa: A001 - the public name of the contract (fl.exact.enumerate)
 
 __all__ = ["EnumerationTooLarge", "class_densities", "distribution", "enumerate", "enumerate_configurations",
-           "enumerate_heights", "formulas", "integer_determinant", "placement_probabilities"]
+           "enumerate_heights", "formulas", "integer_determinant", "log_partition_function",
+           "placement_probabilities"]

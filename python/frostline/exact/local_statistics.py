@@ -57,3 +57,19 @@ def class_densities(region: Any, tolerance: float = 1e-6) -> Dict[str, Tuple[np.
     classes = region.classify(tiles)
     centres = region.tile_centres(tiles)
     return {name: (centres[classes == k], p[classes == k]) for k, name in enumerate(region.tile_classes)}
+
+
+def log_partition_function(region: Any) -> float:
+    """Natural log of the weighted number of tilings of a dimer region, in floating point.
+
+    From a real Kasteleyn matrix (``region.kasteleyn_real()``: the plain
+    adjacency for lozenges, the odd-column signing for dominoes, times edge
+    weights), by LU factorisation; for regions too large for exact integers.
+    """
+    k = region.kasteleyn_real()
+    n = k.shape[0]
+    check_memory(16 * n * n + 10**6, f"the {n}x{n} Kasteleyn matrix")
+    sign, log = np.linalg.slogdet(k)
+    if sign == 0:
+        raise ValueError("the region has no tiling (the Kasteleyn determinant is 0)")
+    return float(log)
