@@ -3,6 +3,7 @@
 #include <memory>
 
 #include "frostline/bindings/support.hpp"
+#include "frostline/enumeration.hpp"
 #include "frostline/graph_tools.hpp"
 #include "frostline/height_model.hpp"
 #include "frostline/monotonicity.hpp"
@@ -192,6 +193,19 @@ void register_engine(py::module_& parent) {
         return result;
     }, py::arg("values"), py::arg("known"), py::arg("tails"), py::arg("heads"), py::arg("deltas"),
        "Heights along edges (h[head] - h[tail] = delta) from the known ones, breadth first.");
+
+    m.def("all_configurations", [](const height_model& model, std::int64_t cap) {
+        std::vector<std::int32_t> rows;
+        {
+            py::gil_scoped_release free;  // can take a while near the cap
+            rows = all_configurations(model, cap);
+        }
+        const py::ssize_t n = model.n_sites();
+        py::array_t<std::int32_t> out({n ? static_cast<py::ssize_t>(rows.size()) / n : py::ssize_t(0), n});
+        std::copy(rows.begin(), rows.end(), out.mutable_data());
+        return out;
+    }, py::arg("model"), py::arg("cap"),
+       "Every configuration (rows of site heights) by depth-first search; independent of local moves.");
 
     m.def("heat_bath_draws", &heat_bath_draws, py::arg("lo"), py::arg("hi"), py::arg("step"), py::arg("q"),
           py::arg("min_height"), py::arg("max_height"), py::arg("bits"),

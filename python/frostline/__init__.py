@@ -18,7 +18,8 @@ from __future__ import annotations
 from typing import Any
 
 from ._version import __version__
-from .checker import MonotonicityReport, check_monotone
+from . import custom
+from .checker import ModelReport, MonotonicityReport, check_model, check_monotone
 from .diagnostics import ChainDiagnostics, equilibrium_diagnostics
 from .errors import FrostlineWarning, RegionTooLargeError
 from .io import load, save
@@ -32,6 +33,7 @@ __all__ = [
     "ChainDiagnostics",
     "FrostlineWarning",
     "HeightModel",
+    "ModelReport",
     "MonotonicityReport",
     "Region",
     "RegionTooLargeError",
@@ -39,13 +41,35 @@ __all__ = [
     "SampleInfo",
     "SeedRecord",
     "__version__",
+    "check_model",
     "check_monotone",
+    "custom",
     "equilibrium_diagnostics",
+    "get_cmake_dir",
+    "get_include",
     "lattice",
     "lattices",
     "load",
     "save",
 ]
+
+
+def get_include() -> str:
+    """Folder of the engine's C++ headers (``#include "frostline/..."``), for outside compiled plugins."""
+    from pathlib import Path
+
+    from . import _core  # the compiled module sits where the wheel put the headers
+
+    return str(Path(_core.__file__).parent / "include")
+
+
+def get_cmake_dir() -> str:
+    """Folder holding ``frostlineConfig.cmake`` (pass it as ``-Dfrostline_DIR=...``)."""
+    from pathlib import Path
+
+    from . import _core
+
+    return str(Path(_core.__file__).parent / "share" / "cmake" / "frostline")
 
 
 def __getattr__(name: str) -> Any:

@@ -66,3 +66,68 @@ def check_monotone(target: Union[HeightModel, Any], *, q: float = 1.0, rule: Opt
     out = _core.engine.check_monotone(model._compiled, float(q), rule, sites, int(window), _test_bits(rule, random_words))
     return MonotonicityReport(bool(out["monotone"]), str(out["detail"]), int(sites.size), int(out["configurations"]),
                               int(out["comparisons"]))
+
+
+@dataclass(frozen=True)
+class ModelReport:
+    """Outcome of :func:`check_model`; ``problems`` says what failed and where."""
+
+    configurations: int
+    extremes_valid: bool
+    extremes_extremal: bool
+    moves_connect: bool
+    monotone: MonotonicityReport
+    problems: tuple
+
+    @property
+    def ok(self) -> bool:
+        return not self.problems
+
+    def __bool__(self) -> bool:
+        return self.ok
+
+
+def check_model(target: Any, *, cap: int = 200_000, q: float = 1.0, rule: Optional[dict] = None) -> ModelReport:
+    """Check a small instance of a height model (a HeightModel, or a region's lowered model).
+
+    1. The least and greatest states from Thurston's algorithm satisfy every
+       constraint and residue, and bound every configuration (extremal).
+    2. Single-site moves of one step connect every configuration: the moves'
+       walk from the least state (``frostline.exact.enumerate_heights``) finds
+       exactly the configurations found by an independent depth-first search.
+    3. The heat-bath rule is monotone (:func:`check_monotone`).
+    """
+    from .exact.enumeration import enumerate_heights
+
+    model = target
+    if not isinstance(target, HeightModel):
+        model, q, rule = target.heat_bath_rule()
+    problems = []
+    least, greatest = model.extremes()
+    n = model.n_sites
+    c = model.constraints
+    valid = True
+    for name, state in (("least", least), ("greatest", greatest)):
+        broken = np.flatnonzero(state[c[:, 1]] - state[c[:, 0]] > c[:, 2])
+        if broken.size:
+            valid = False
+            u, v, b = c[broken[0]]
+            problems.append(f"the {name} state breaks h[{v}] - h[{u}] <= {b}")
+        off = np.flatnonzero((state[:n] - model.residues) % model.step != 0)
+        if off.size:
+            valid = False
+            problems.append(f"the {name} state has site {off[0]} outside its residue class")
+    everything = _core.engine.all_configurations(model._compiled, int(cap))
+    extremal = bool(everything.size == 0 or (np.all(everything >= least[:n]) and np.all(everything <= greatest[:n])))
+    if not extremal:
+        problems.append("some configuration lies outside the least / greatest states")
+    walked = enumerate_heights(model, cap)[:, :n]
+    reached = {row.tobytes() for row in np.ascontiguousarray(walked, dtype=np.int32)}
+    missing = [row for row in np.ascontiguousarray(everything, dtype=np.int32) if row.tobytes() not in reached]
+    if missing:
+        problems.append(f"single-site moves from the least state reach {len(reached)} of {len(everything)} "
+                        f"configurations; first one missed: {missing[0].tolist()}")
+    monotone = check_monotone(model, q=q, rule=rule)
+    if not monotone.monotone:
+        problems.append(f"the heat-bath rule is not monotone: {monotone.detail}")
+    return ModelReport(len(everything), valid, extremal, not missing, monotone, tuple(problems))
