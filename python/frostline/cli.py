@@ -32,6 +32,7 @@ EXAMPLES = """examples:
   frostline sample ice 40 --weights 1 1 1.414 --picture matrix.pdf --view matrix
   frostline count hexagon 6 6 6
   frostline density aztec 30 --picture aztec-densities.png
+  frostline compare --sizes 30 60 100 --prefix comparison
   frostline show weighted.npz --picture weighted.svg
   frostline demo --folder pictures
 
@@ -115,6 +116,15 @@ def _parser() -> argparse.ArgumentParser:
     _add_shapes(density, sampling=False)
     for p in density._subparsers._group_actions[0].choices.values():  # every shape takes --picture here
         p.add_argument("--picture", type=Path, required=True, help="the picture to write (.png, .svg or .pdf)")
+    compare = commands.add_parser(
+        "compare", help="frozen boundaries of lozenges, dominoes and square ice against theory",
+        description="For a regular hexagon, an Aztec diamond and domain-wall square ice at each size: one exact "
+                    "sample, its density map, its empirical frozen boundary and the published arctic curve; writes "
+                    "PREFIX.png, PREFIX.pdf and PREFIX.csv (distances in scaled units).")
+    compare.add_argument("--sizes", type=int, nargs="+", default=[30, 60, 100], help="sizes n (default 30 60 100)")
+    compare.add_argument("--seed", type=int, default=2026)
+    compare.add_argument("--prefix", type=Path, default=Path("frostline-compare"),
+                         help="output files PREFIX.png, PREFIX.pdf, PREFIX.csv (default ./frostline-compare)")
     show = commands.add_parser("show", help="print the record of a saved sample and optionally draw it")
     show.add_argument("file", type=Path, help="a .npz file written by 'frostline sample ... --output'")
     show.add_argument("--picture", type=Path, default=None, help="write a picture (.png, .svg or .pdf)")
@@ -230,6 +240,32 @@ def _density(args) -> int:
     return 0
 
 
+def _compare(args) -> int:
+    from . import domino, lozenge, plot, square_ice
+    from .analysis.compare import compare, figure, table
+
+    if any(n < 4 for n in args.sizes):
+        raise ValueError("sizes must be at least 4")
+    if not args.prefix.resolve().parent.is_dir():
+        raise ValueError(f"the folder of {args.prefix} does not exist")
+    cases = [("lozenge hexagon", lambda n: lozenge.hexagon(n, n, n)),
+             ("domino Aztec diamond", lambda n: domino.aztec_diamond(n)),
+             ("square ice, domain wall", lambda n: square_ice.domain_wall(n))]
+    started = time.perf_counter()
+    rows = compare(cases, args.sizes, seed=args.seed,
+                   progress=lambda s: print(f"  {s} ({time.perf_counter() - started:.0f} s)", file=sys.stderr))
+    text = table(rows)
+    print(text, end="")
+    plt = plot._pyplot()
+    fig = figure(rows, args.sizes)
+    for ext in (".png", ".pdf"):
+        fig.savefig(str(args.prefix) + ext, dpi=150, bbox_inches="tight")
+    plt.close(fig)
+    Path(str(args.prefix) + ".csv").write_text(text)
+    print(f"wrote {args.prefix}.png, {args.prefix}.pdf and {args.prefix}.csv")
+    return 0
+
+
 def _show(args) -> int:
     from .io import load
 
@@ -263,7 +299,8 @@ def _demo(args) -> int:
 def main(argv: Optional[Sequence[str]] = None) -> int:
     """Entry point of the ``frostline`` command; returns the exit status."""
     args = _parser().parse_args(list(argv) if argv is not None else None)
-    handlers = {"sample": _sample, "count": _count, "density": _density, "show": _show, "demo": _demo}
+    handlers = {"sample": _sample, "count": _count, "density": _density, "compare": _compare, "show": _show,
+                "demo": _demo}
     try:
         return handlers[args.command](args)
     except KeyboardInterrupt:

@@ -220,6 +220,18 @@ class Region(abc.ABC):
         """Plane coordinates (k, 2) of the centres of tiles."""
         raise NotImplementedError(f"{type(self).__name__} does not place tiles in the plane")
 
+    @property
+    def scale(self) -> float:
+        """The region's linear size (lattice units), for scaled coordinates."""
+        return 1.0
+
+    def arctic_curve(self, m: int = 720) -> np.ndarray:
+        """The published limit of the frozen boundary, as (m, 2) points in plane coordinates.
+
+        Raises ValueError for regions where no published curve is known.
+        """
+        raise ValueError(f"no published arctic curve is known for {self!r}")
+
     def sample_views(self) -> Dict[str, Callable[[np.ndarray], Any]]:
         """Named views of a sample computed from its heights (``Sample.<name>``); none by default."""
         return {}

@@ -373,6 +373,25 @@ class DominoRegion(Region):
         x0, y0 = self.plane_origin
         return np.stack([t[:, 1] + 0.5 - x0, y0 - t[:, 0] - 0.5], axis=1)
 
+    @property
+    def scale(self) -> float:
+        """The order n for Aztec diamonds; otherwise half the larger side of the mask."""
+        if self.is_aztec_diamond:
+            return float(self._description["order"])
+        return max(self.mask.shape) / 2.0
+
+    def arctic_curve(self, m: int = 720) -> np.ndarray:
+        """Aztec diamond, uniform or with vertical weight a: the circle / ellipse, centred frame."""
+        if not self.is_aztec_diamond:
+            raise ValueError(f"no published arctic curve is built in for {self!r}")
+        d = self._description
+        if self.weights is not None and "vertical_weight" not in d:
+            raise ValueError("no closed-form arctic curve is built in for these weights (two-periodic curves are "
+                             "algebraic of degree 8 and not reproduced here)")
+        from .arctic import aztec_curve
+
+        return aztec_curve(d["order"], d.get("vertical_weight", 1.0), m)
+
     def heat_bath_rule(self):
         """(generic model, 1, rule): uniform, or the two-point rule of the edge weights."""
         return self._engine()["model"], 1.0, self._engine()["rule"]

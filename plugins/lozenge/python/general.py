@@ -242,6 +242,18 @@ class LozengeRegion(Region):
     def classify(self, tiles: np.ndarray) -> np.ndarray:
         return np.asarray(tiles)[:, 2].astype(np.int8)
 
+    @property
+    def scale(self) -> float:
+        return float(np.sqrt(len(self.triangles) / 2.0 / 3.0))  # n for the regular hexagon (3 n^2 lozenges)
+
+    def arctic_curve(self, m: int = 720) -> np.ndarray:
+        """The inscribed ellipse for a uniform hexagon given through the general route; else ValueError."""
+        if self._description.get("shape") == "hexagon" and self.q == 1.0:
+            from .arctic import hexagon_ellipse
+
+            return hexagon_ellipse(*self._description["sides"], m=m)
+        raise ValueError(f"no published arctic curve is built in for {self!r}")
+
     def heat_bath_rule(self):
         """(generic model, q, None): the q^volume heat bath on lattice-point heights."""
         return self._model, self.q, None

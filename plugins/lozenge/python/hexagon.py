@@ -138,6 +138,20 @@ class HexagonRegion(Region):
     def classify(self, tiles: np.ndarray) -> np.ndarray:
         return np.asarray(tiles)[:, 2].astype(np.int8)
 
+    @property
+    def scale(self) -> float:
+        """(a + b + c) / 3: n for the regular n x n x n hexagon."""
+        return (self.a + self.b + self.c) / 3.0
+
+    def arctic_curve(self, m: int = 720) -> np.ndarray:
+        """The inscribed ellipse (Cohn, Larsen, Propp 1998); uniform weights only."""
+        if self.q != 1.0:
+            raise ValueError("the inscribed ellipse is the arctic curve of the uniform hexagon; no closed form is "
+                             "built in for q ** volume weights")
+        from .arctic import hexagon_ellipse
+
+        return hexagon_ellipse(self.a, self.b, self.c, m)
+
     def heat_bath_rule(self):
         """(generic model, q, None): the q^volume heat bath on plane partitions."""
         return self.lower(), self.q, None

@@ -168,6 +168,23 @@ class SquareIceRegion(Region):
         t = np.asarray(tiles, dtype=float)
         return np.stack([t[:, 1] + 0.5, self.n - t[:, 0] - 0.5], axis=1)
 
+    @property
+    def scale(self) -> float:
+        return float(self.n)
+
+    def arctic_curve(self, m: int = 720) -> np.ndarray:
+        """Domain wall only: the free-fermion ellipse (c^2 = a^2 + b^2) or the uniform ASM curve (a = b = c)."""
+        if not self.is_domain_wall:
+            raise ValueError("arctic curves are built in for the domain-wall boundary only")
+        from .arctic import asm_curve, free_fermion_curve
+
+        if abs(self.c ** 2 - self.a ** 2 - self.b ** 2) <= 1e-12 * self.c ** 2:
+            return free_fermion_curve(self.n, self.a, self.b, self.c, m)
+        if self.uniform:
+            return asm_curve(self.n, m)
+        raise ValueError(f"no closed-form arctic curve is built in for Delta = {self.delta:.4g} (the general "
+                         "|Delta| < 1 curves are parametric and not reproduced here)")
+
     # ----- exactness ---------------------------------------------------------------------
     def heat_bath_rule(self):
         """(generic model, 1, rule): uniform, or the context rule of the vertex weights."""

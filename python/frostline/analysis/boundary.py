@@ -1,0 +1,116 @@
+"""Frozen regions and their boundary, from a density grid (any plugin).
+
+A bin is frozen when a single tile class fills at least ``1 - tolerance`` of
+it; bins outside the region count as frozen, so the boundary traced is the
+one between the liquid region and everything frozen around it. The boundary is
+the level set max-fraction = 1 - tolerance/2, traced by marching squares and
+joined into polylines.
+"""
+from __future__ import annotations
+
+from typing import Callable, Dict, List, Tuple
+
+import numpy as np
+
+from .densities import DensityGrid
+
+
+def _max_fraction(grid: DensityGrid) -> np.ndarray:
+    f = np.nanmax(np.where(np.isnan(grid.fractions), -np.inf, grid.fractions), axis=0)
+    return np.where(grid.counts > 0, f, 1.0)  # outside the region: frozen
+
+
+def frozen_mask(grid: DensityGrid, tolerance: float = 0.1) -> np.ndarray:
+    """Boolean (nx, ny): True where one class fills at least 1 - tolerance of the bin (or no tile lies there)."""
+    return _max_fraction(grid) >= 1.0 - tolerance
+
+
+def frozen_boundary(grid: DensityGrid, tolerance: float = 0.1, scale: float = 1.0,
+                    keep: float = 0.1) -> List[np.ndarray]:
+    """Polylines (each an (m, 2) array, plane coordinates divided by ``scale``) of the frozen boundary.
+
+    Pieces shorter than ``keep`` times the longest one (islands of noise) are dropped.
+    """
+    field = _max_fraction(grid)
+    level = 1.0 - tolerance / 2
+    lines = _join(_marching_squares(grid.x, grid.y, field, level))
+    if not lines:
+        return []
+    length = [float(np.hypot(*np.diff(line, axis=0).T).sum()) for line in lines]
+    longest = max(length)
+    return [line / scale for line, ell in zip(lines, length) if ell >= keep * longest]
+
+
+def _marching_squares(x: np.ndarray, y: np.ndarray, f: np.ndarray, level: float) -> List[Tuple[tuple, tuple]]:
+    segments = []
+    nx, ny = f.shape
+
+    def cross(p, q, fp, fq):
+        t = (level - fp) / (fq - fp)
+        return (p[0] + t * (q[0] - p[0]), p[1] + t * (q[1] - p[1]))
+
+    for i in range(nx - 1):
+        for j in range(ny - 1):
+            corners = [(x[i], y[j]), (x[i + 1], y[j]), (x[i + 1], y[j + 1]), (x[i], y[j + 1])]
+            values = [f[i, j], f[i + 1, j], f[i + 1, j + 1], f[i, j + 1]]
+            points = []
+            for k in range(4):
+                a, b = values[k], values[(k + 1) % 4]
+                if (a < level) != (b < level):
+                    points.append(cross(corners[k], corners[(k + 1) % 4], a, b))
+            if len(points) == 2:
+                segments.append((points[0], points[1]))
+            elif len(points) == 4:  # saddle: pair neighbouring crossings
+                segments += [(points[0], points[1]), (points[2], points[3])]
+    return segments
+
+
+def _join(segments: List[Tuple[tuple, tuple]]) -> List[np.ndarray]:
+    def key(p):
+        return (round(p[0], 9), round(p[1], 9))
+
+    ends: Dict[tuple, List[int]] = {}
+    for k, (a, b) in enumerate(segments):
+        ends.setdefault(key(a), []).append(k)
+        ends.setdefault(key(b), []).append(k)
+    used = [False] * len(segments)
+    lines = []
+    for start in range(len(segments)):
+        if used[start]:
+            continue
+        used[start] = True
+        line = [segments[start][0], segments[start][1]]
+        for forward in (True, False):
+            while True:
+                tip = line[-1] if forward else line[0]
+                nxt = next((k for k in ends.get(key(tip), []) if not used[k]), None)
+                if nxt is None:
+                    break
+                used[nxt] = True
+                a, b = segments[nxt]
+                other = b if key(a) == key(tip) else a
+                if forward:
+                    line.append(other)
+                else:
+                    line.insert(0, other)
+        lines.append(np.array(line))
+    return sorted(lines, key=len, reverse=True)
+
+
+def near_edge(grid: DensityGrid, distance: float, scale: float = 1.0) -> Callable[[np.ndarray], np.ndarray]:
+    """A mask function for :func:`curve_distance`: points (divided by ``scale``) within
+    ``distance`` (scaled units) of a bin outside the region."""
+    outside = np.argwhere(grid.counts == 0)
+    xy = np.stack([grid.x[outside[:, 0]], grid.y[outside[:, 1]]], axis=1) / scale
+
+    def mask(points: np.ndarray) -> np.ndarray:
+        if len(xy) == 0:
+            return np.zeros(len(points), bool)
+        out = np.zeros(len(points), bool)
+        for k in range(0, len(points), 2000):
+            chunk = points[k:k + 2000]
+            d = np.sqrt(((chunk[:, None, :] - xy[None, :, :]) ** 2).sum(-1)).min(axis=1)
+            out[k:k + 2000] = d < distance
+        return out
+
+    return mask

@@ -1,0 +1,58 @@
+"""Curves: points on conics, and the distance between an empirical boundary and a theory curve."""
+from __future__ import annotations
+
+from typing import Callable, Optional, Sequence, Union
+
+import numpy as np
+
+
+def conic_points(a: float, b: float, c: float, d: float, e: float, f: float, m: int = 720) -> np.ndarray:
+    """m points on the ellipse a x^2 + b xy + c y^2 + d x + e y + f = 0 (counter-clockwise, closed)."""
+    centre = np.linalg.solve(np.array([[2 * a, b], [b, 2 * c]]), np.array([-d, -e]))
+    value = a * centre[0] ** 2 + b * centre[0] * centre[1] + c * centre[1] ** 2 + d * centre[0] + e * centre[1] + f
+    theta = np.linspace(0, 2 * np.pi, m, endpoint=False)
+    u = np.stack([np.cos(theta), np.sin(theta)], axis=1)
+    quad = a * u[:, 0] ** 2 + b * u[:, 0] * u[:, 1] + c * u[:, 1] ** 2
+    if value >= 0 or np.any(quad <= 0):
+        raise ValueError("the conic is not a real ellipse")
+    r = np.sqrt(-value / quad)
+    return centre + r[:, None] * u
+
+
+def _densify(curve: np.ndarray, spacing: float) -> np.ndarray:
+    pts = [curve[:1]]
+    for p, q in zip(curve[:-1], curve[1:]):
+        k = max(1, int(np.ceil(np.hypot(*(q - p)) / spacing)))
+        t = np.linspace(0, 1, k + 1)[1:, None]
+        pts.append(p + t * (q - p))
+    return np.concatenate(pts)
+
+
+def curve_distance(empirical: Union[np.ndarray, Sequence[np.ndarray]], theory: np.ndarray,
+                   spacing: float = 0.002, exclude: Optional[Callable[[np.ndarray], np.ndarray]] = None) -> float:
+    """Largest distance from either curve to the other (symmetric Hausdorff distance).
+
+    ``empirical`` is a polyline or a list of them; both curves are densified to
+    ``spacing`` (in the curves' units, e.g. scaled by the region size).
+    ``exclude(points) -> bool mask`` drops points of either curve from the
+    comparison (e.g. those next to the region's edge, where the liquid region
+    touches the boundary and a finite sample cannot show the tangency).
+    """
+    lines = [empirical] if isinstance(empirical, np.ndarray) else list(empirical)
+    if not lines:
+        raise ValueError("the empirical boundary is empty")
+    a = np.concatenate([_densify(np.asarray(line, float), spacing) for line in lines])
+    b = _densify(np.asarray(theory, float), spacing)
+    if exclude is not None:
+        a, b = a[~exclude(a)], b[~exclude(b)]
+        if len(a) == 0 or len(b) == 0:
+            raise ValueError("every point was excluded from the comparison")
+
+    def directed(p: np.ndarray, q: np.ndarray) -> float:
+        worst = 0.0
+        for chunk in np.array_split(p, max(1, len(p) // 2000)):
+            d = np.sqrt(((chunk[:, None, :] - q[None, :, :]) ** 2).sum(-1)).min(axis=1)
+            worst = max(worst, float(d.max()))
+        return worst
+
+    return max(directed(a, b), directed(b, a))
