@@ -47,8 +47,9 @@ def compare(cases: Sequence[Tuple[str, Callable[[int], object]]], sizes: Sequenc
             grid = density_grid(sample, bin_size=0.5, smoothing=smoothing)
             boundary = frozen_boundary(grid, tolerance, scale=region.scale)
             theory = region.arctic_curve() / region.scale
-            rows.append(ComparisonRow(label, n, curve_distance(boundary, theory), seconds, grid, boundary, theory,
-                                      region.scale))
+            # a small sample may show no frozen region at this resolution: no distance then (NaN)
+            distance = curve_distance(boundary, theory) if boundary else float("nan")
+            rows.append(ComparisonRow(label, n, distance, seconds, grid, boundary, theory, region.scale))
     return rows
 
 
