@@ -113,8 +113,8 @@ def test_density_pictures(tmp_path, capsys):
 def test_compare_writes_figure_and_table(tmp_path, capsys):
     prefix = tmp_path / "cmp"
     assert main(["compare", "--sizes", "12", "20", "--prefix", str(prefix), "--seed", "1"]) == 0
-    for ext in (".png", ".pdf", ".csv"):
-        assert (tmp_path / f"cmp{ext}").stat().st_size > 500
+    for ext in (".png", ".pdf"):
+        assert (tmp_path / f"cmp{ext}").stat().st_size > 5000
     rows = (tmp_path / "cmp.csv").read_text().strip().splitlines()
     assert rows[0] == "lattice,size,distance,seconds" and len(rows) == 1 + 3 * 2
     assert main(["compare", "--sizes", "2"]) == 2
