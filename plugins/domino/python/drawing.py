@@ -5,6 +5,8 @@ from typing import Any, Optional, Sequence
 
 import numpy as np
 
+from frostline.plot import frame
+
 #: north, south, east, west: two warm tones for horizontal, two cool for vertical
 CLASS_TONES = ("#d9a441", "#8c4a2f", "#3f6e8c", "#9cc3c9")
 
@@ -36,13 +38,4 @@ def draw_dominoes(tiles: np.ndarray, classes: np.ndarray, ax: Any = None, *, ton
         edge_width = 0.2 if large else 0.6
     edges: Any = edge_colour or (colours if large else "#1f1a17")
     ax.add_collection(PolyCollection(rects, facecolors=colours, edgecolors=edges, linewidths=edge_width))
-    if len(rects):
-        lo, hi = rects.reshape(-1, 2).min(0), rects.reshape(-1, 2).max(0)
-        pad = 0.02 * max(hi - lo)
-        ax.set_xlim(lo[0] - pad, hi[0] + pad)
-        ax.set_ylim(lo[1] - pad, hi[1] + pad)
-    ax.set_aspect("equal")
-    ax.set_axis_off()
-    if title:
-        ax.set_title(title)
-    return ax
+    return frame(ax, rects, title)

@@ -1,10 +1,11 @@
 """Named domino regions and the ways to give a region."""
 from __future__ import annotations
 
-import numbers
 from typing import Any, Optional
 
 import numpy as np
+
+from frostline._validate import integer
 
 from .region import DominoRegion
 from .weights import biased, two_periodic
@@ -14,13 +15,7 @@ EMPTY = ".- _"
 
 
 def _order(n: Any, name: str) -> int:
-    if isinstance(n, bool) or not isinstance(n, numbers.Integral):
-        raise TypeError(f"{name} must be an int, got {n!r} of type {type(n).__name__}")
-    if n < 1:
-        raise ValueError(f"{name} must be at least 1, got {n}")
-    if n > 2**14:
-        raise ValueError(f"{name} = {n} is beyond what fits in memory")
-    return int(n)
+    return integer(n, name, 1, 2**14)
 
 
 def aztec_mask(n: int) -> np.ndarray:

@@ -5,6 +5,8 @@ from typing import Any, Optional, Sequence
 
 import numpy as np
 
+from frostline.plot import frame
+
 from .tiles import lozenge_polygons
 
 #: our palette: cube tops pale, the two visible sides in two darker tones
@@ -37,13 +39,4 @@ def draw_lozenges(tiles: np.ndarray, ax: Any = None, *, tones: Sequence[str] = F
     else:
         edges = edge_colour
     ax.add_collection(PolyCollection(polygons, facecolors=colours, edgecolors=edges, linewidths=edge_width))
-    if len(tiles):
-        lo, hi = polygons.reshape(-1, 2).min(axis=0), polygons.reshape(-1, 2).max(axis=0)
-        pad = 0.02 * max(hi - lo)
-        ax.set_xlim(lo[0] - pad, hi[0] + pad)
-        ax.set_ylim(lo[1] - pad, hi[1] + pad)
-    ax.set_aspect("equal")
-    ax.set_axis_off()
-    if title:
-        ax.set_title(title)
-    return ax
+    return frame(ax, polygons, title)

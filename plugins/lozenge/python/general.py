@@ -23,17 +23,16 @@ import numpy as np
 from frostline._limits import check_memory
 from frostline.height_walk import integrate, refuse_holes, walk_boundary
 from frostline.model import HeightModel, ProgressHook
-from frostline.region import Region, Sample, StartLike
+from frostline.region import Region, StartLike
 
-from .drawing import draw_lozenges
 from .geometry import EDGE_ENDS, PARTNER, TriangleGrid
 from .hexagon import QLike, _weight
-from .tiles import TILE_CLASSES, lozenge_centres, lozenge_dimer_system
+from .tiles import LozengeTiles, lozenge_dimer_system
 
 KERNELS = ("auto", "generic")
 
 
-class LozengeRegion(Region):
+class LozengeRegion(LozengeTiles, Region):
     """Lozenge tilings of a region of unit triangles, weight q ** volume.
 
     ``Sample.heights`` is an int32 array over the bounding box of the region's
@@ -41,9 +40,6 @@ class LozengeRegion(Region):
     (i0, j0) = ``region.origin``; ``region.vertex_mask`` marks the points in the
     region (entries outside it are 0). ``Sample.tiles`` holds (x, y, t) rows.
     """
-
-    lattice = "lozenge"
-    tile_classes = TILE_CLASSES
 
     def __init__(self, triangles: np.ndarray, q: QLike = 1.0, *, description: Optional[Dict[str, Any]] = None):
         self.q, self._q_exact = _weight(q)
@@ -236,12 +232,6 @@ class LozengeRegion(Region):
             raise ValueError("q ** volume is not an edge weighting; use q = 1")
         return self.adjacency_matrix().astype(float)
 
-    def tile_centres(self, tiles: np.ndarray) -> np.ndarray:
-        return lozenge_centres(tiles)
-
-    def classify(self, tiles: np.ndarray) -> np.ndarray:
-        return np.asarray(tiles)[:, 2].astype(np.int8)
-
     @property
     def scale(self) -> float:
         return float(np.sqrt(len(self.triangles) / 2.0 / 3.0))  # n for the regular hexagon (3 n^2 lozenges)
@@ -319,9 +309,6 @@ class LozengeRegion(Region):
         volumes = (states[:, :n].astype(np.int64) - least).sum(axis=1) // 3
         q = self._q_exact
         return sum((q ** int(v) for v in volumes), Fraction(0))
-
-    def draw(self, sample: Sample, ax: Any = None, **style: Any) -> Any:
-        return draw_lozenges(sample.tiles, ax=ax, **style)
 
     def __repr__(self) -> str:
         return f"LozengeRegion({self._description}, lozenges={self.n_lozenges}, q={self.q!r})"

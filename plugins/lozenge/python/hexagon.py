@@ -9,12 +9,12 @@ import numpy as np
 
 from frostline import _core
 from frostline._limits import check_memory
+from frostline._validate import integer
 from frostline.model import HeightModel, ProgressHook
-from frostline.region import Region, Sample, StartLike
+from frostline.region import Region, StartLike
 
 from . import counts
-from .drawing import draw_lozenges
-from .tiles import TILE_CLASSES, hexagon_corners, lozenge_centres, tiles_of_plane_partition
+from .tiles import LozengeTiles, hexagon_corners, tiles_of_plane_partition
 
 QLike = Union[float, int, Fraction]
 
@@ -22,13 +22,7 @@ KERNELS = ("auto", "box", "generic")
 
 
 def _side(value: Any, name: str) -> int:
-    if isinstance(value, bool) or not isinstance(value, numbers.Integral):
-        raise TypeError(f"side {name} must be an int, got {value!r} of type {type(value).__name__}")
-    if value < 0:
-        raise ValueError(f"side {name} must be non-negative, got {value} (a side of 0 is a valid degenerate hexagon)")
-    if value > 2**30:
-        raise ValueError(f"side {name} = {value} is beyond the 32-bit height range")
-    return int(value)
+    return integer(value, f"side {name}", 0, 2**30, " (a side of 0 is a valid degenerate hexagon)")
 
 
 def _weight(q: Any) -> Tuple[float, Fraction]:
@@ -43,7 +37,7 @@ def _weight(q: Any) -> Tuple[float, Fraction]:
     return value, Fraction(q) if isinstance(q, (Fraction, numbers.Integral)) else Fraction(value)
 
 
-class HexagonRegion(Region):
+class HexagonRegion(LozengeTiles, Region):
     """Lozenge tilings of the a, b, c hexagon = plane partitions in an a x b x c box.
 
     Heights (``Sample.heights``) are the plane partition: an int32 array of
@@ -52,9 +46,6 @@ class HexagonRegion(Region):
     :mod:`frostline.lozenge.tiles`: ab of type 0, bc of type 1, ca of type 2.
     The weight of a configuration is q ** volume (q = 1: uniform).
     """
-
-    lattice = "lozenge"
-    tile_classes = TILE_CLASSES
 
     def __init__(self, a: int, b: int, c: int, q: QLike = 1.0) -> None:
         self.a, self.b, self.c = _side(a, "a"), _side(b, "b"), _side(c, "c")
@@ -131,12 +122,6 @@ class HexagonRegion(Region):
         from .shapes import hexagon_region
 
         return hexagon_region(self.a, self.b, self.c).kasteleyn_real()
-
-    def tile_centres(self, tiles: np.ndarray) -> np.ndarray:
-        return lozenge_centres(tiles)
-
-    def classify(self, tiles: np.ndarray) -> np.ndarray:
-        return np.asarray(tiles)[:, 2].astype(np.int8)
 
     @property
     def scale(self) -> float:
@@ -222,10 +207,6 @@ class HexagonRegion(Region):
     def volume_polynomial(self) -> list:
         """Coefficients [n_0, n_1, ..., n_abc]: n_v plane partitions of volume v."""
         return counts.volume_polynomial(self.a, self.b, self.c)
-
-    def draw(self, sample: Sample, ax: Any = None, **style: Any) -> Any:
-        """Draw the tiling (three tones, cube tops palest)."""
-        return draw_lozenges(sample.tiles, ax=ax, **style)
 
 
 def is_plane_partition(pp: np.ndarray, c: int) -> bool:

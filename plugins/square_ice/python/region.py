@@ -26,6 +26,7 @@ import numpy as np
 
 from frostline import _core
 from frostline._limits import check_memory
+from frostline._validate import integer
 from frostline.checker import check_monotone
 from frostline.model import HeightModel, ProgressHook
 from frostline.region import Region, Sample, StartLike
@@ -305,13 +306,7 @@ class SquareIceRegion(Region):
 
 
 def _size(n: Any) -> int:
-    if isinstance(n, bool) or not isinstance(n, numbers.Integral):
-        raise TypeError(f"n must be an int, got {type(n).__name__}")
-    if n < 1:
-        raise ValueError(f"n must be at least 1, got {n}")
-    if n > 2**14:
-        raise ValueError(f"n = {n} is beyond what fits in memory")
-    return int(n)
+    return integer(n, "n", 1, 2**14)
 
 
 def domain_wall(n: int, a: float = 1.0, b: float = 1.0, c: float = 1.0) -> SquareIceRegion:
