@@ -53,25 +53,29 @@ def walk_boundary(tails: np.ndarray, heads: np.ndarray, rise: int, order: Sequen
     return heights, component
 
 
-def refuse_holes(edge_piece: np.ndarray, edge_component: np.ndarray, name: Callable[[int], str],
-                 component_point: Dict[int, int]) -> None:
-    """Raise ValueError if a piece of the region meets more than one boundary component (it has a hole).
+def refuse_holes(outside: np.ndarray, links_a: np.ndarray, links_b: np.ndarray, border: np.ndarray,
+                 name: Callable[[int], str]) -> None:
+    """Raise ValueError if some part of the complement is enclosed by the region (a hole).
 
-    ``edge_piece[k]`` and ``edge_component[k]`` give, for boundary edge k, the
-    piece on its inner side and the boundary component it belongs to;
-    ``component_point`` maps a component to one of its points (for the message).
+    Items are the cells (or triangles) of a padded grid; ``outside`` marks
+    those not in the region, ``links`` join neighbouring items (sharing a
+    side), ``border`` lists the items on the padded grid's edge. A piece of
+    the complement that reaches no border item is a hole, even when it touches
+    the outside at a single corner: heights around it need not close up, so
+    frostline refuses such regions rather than sample a wrong law.
     """
-    seen: Dict[int, set] = {}
-    for piece, comp in zip(np.asarray(edge_piece).tolist(), np.asarray(edge_component).tolist()):
-        seen.setdefault(piece, set()).add(comp)
-    for comps in seen.values():
-        if len(comps) > 1:
-            inner = sorted(comps)[1]
-            raise ValueError(
-                f"the region has a hole: the boundary through {name(component_point[inner])} is separate from the "
-                "outer boundary of its piece; frostline samples regions whose pieces are simply connected: fill "
-                "the hole, or split the region along a cut"
-            )
+    outside = np.asarray(outside, dtype=bool)
+    a, b = np.asarray(links_a), np.asarray(links_b)
+    keep = outside[a] & outside[b]
+    labels = pieces(len(outside), a[keep], b[keep])
+    reaching = np.unique(labels[np.asarray(border)[outside[np.asarray(border)]]])
+    enclosed = np.flatnonzero(outside & ~np.isin(labels, reaching))
+    if enclosed.size:
+        raise ValueError(
+            f"the region has a hole: {name(int(enclosed[0]))} is not in the region but enclosed by it (perhaps "
+            "touching the outside only at a corner); frostline samples regions whose pieces are simply connected: "
+            "fill the hole, or split the region along a cut"
+        )
 
 
 def integrate(values: np.ndarray, known: np.ndarray, tails: np.ndarray, heads: np.ndarray,

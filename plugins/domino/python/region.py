@@ -22,7 +22,7 @@ import numpy as np
 
 from frostline import _core
 from frostline._limits import check_memory
-from frostline.height_walk import integrate, pieces, refuse_holes, walk_boundary
+from frostline.height_walk import integrate, refuse_holes, walk_boundary
 from frostline.model import HeightModel, ProgressHook
 from frostline.region import Region, Sample, StartLike
 
@@ -86,20 +86,8 @@ class DominoRegion(Region):
         heads = np.concatenate([f.head[f.outer] for f in families])
         corners = np.arange((R + 1) * width)
         order = corners[np.lexsort((corners % width, -(corners // width)))]  # bottom row first
-        boundary, component = walk_boundary(tails, heads, 1, order, g.residue, g.corner_name)
-        # pieces of cells (4-neighbour links inside the mask) and the holes test
-        cell_links = [(f.cells[0][f.inner], f.cells[1][f.inner]) for f in families]
-        piece = pieces(R * C, np.concatenate([a for a, _ in cell_links]), np.concatenate([b for _, b in cell_links]))
-        first = np.concatenate([f.cells[0][f.outer] for f in families])
-        second = np.concatenate([f.cells[1][f.outer] for f in families])
-        inside_first = (first >= 0) & self.mask.ravel()[np.maximum(first, 0)]
-        edge_piece = piece[np.where(inside_first, first, second)]
-        edge_component = np.fromiter((component[t] for t in tails.tolist()), dtype=np.int64, count=len(tails))
-        representative = {}
-        for point, comp in component.items():
-            representative.setdefault(comp, point)
-        refuse_holes(edge_piece, edge_component, g.corner_name, representative)
-
+        self._refuse_holes()
+        boundary, _ = walk_boundary(tails, heads, 1, order, g.residue, g.corner_name)
         interior = np.flatnonzero(g.corner_interior.ravel())
         boundary_points = np.array(sorted(boundary), dtype=np.int64)
         node = np.full((R + 1) * width, -1, dtype=np.int64)
@@ -110,6 +98,18 @@ class DominoRegion(Region):
         self._boundary_points = boundary_points
         self._boundary_heights = np.array([boundary[v] for v in boundary_points.tolist()], dtype=np.int64)
         self.corner_mask = g.corner_in.copy()
+
+    def _refuse_holes(self) -> None:
+        R, C = self.mask.shape
+        pad = np.zeros((R + 2, C + 2), bool)
+        pad[1:-1, 1:-1] = self.mask
+        ids = np.arange((R + 2) * (C + 2)).reshape(R + 2, C + 2)
+        links_a = np.concatenate([ids[:, :-1].ravel(), ids[:-1, :].ravel()])
+        links_b = np.concatenate([ids[:, 1:].ravel(), ids[1:, :].ravel()])
+        border = np.concatenate([ids[0], ids[-1], ids[:, 0], ids[:, -1]])
+        width = C + 2
+        refuse_holes(~pad.ravel(), links_a, links_b, border,
+                     lambda k: f"cell ({k // width - 1}, {k % width - 1})")
 
     def _engine(self) -> Dict[str, Any]:
         """The generic model, its extremes, the kernel layout and the rule (built on first use).

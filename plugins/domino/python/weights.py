@@ -33,6 +33,10 @@ def check_weights(horizontal, vertical, shape: Tuple[int, int]) -> Optional[Weig
         if not np.all(np.isfinite(a)) or np.any(a <= 0):
             raise ValueError(f"{name} weights must be finite and positive (no NaN, infinity or zero)")
         out.append(a)
+    every = np.concatenate([w.ravel() for w in out])
+    if every.size and every.max() / every.min() > 1e100:
+        raise ValueError(f"the weights span {every.max() / every.min():.3g} (more than 1e100), beyond what double "
+                         "precision handles in the local rule; rescale them or merge the extreme ones")
     return out[0], out[1]
 
 
@@ -83,13 +87,28 @@ def flip_thresholds(weights: Weights, sites_rc: np.ndarray) -> np.ndarray:
     """
     horizontal, vertical = weights
     r, c = sites_rc[:, 0], sites_rc[:, 1]
-    w_h = horizontal[r - 1, c - 1] * horizontal[r, c - 1]
-    w_v = vertical[r - 1, c - 1] * vertical[r - 1, c]
-    high = np.where((r + c) % 2 == 0, w_h, w_v)
-    p = high / (w_h + w_v)
-    scaled = np.ldexp(p, 64)
+    # ratio of the lower pair's weight to the higher pair's, as a product of ratios: no overflow
+    # for weights within the 1e100 span check_weights allows (products could reach 1e200 each)
+    h1, h2 = horizontal[r - 1, c - 1], horizontal[r, c - 1]
+    v1, v2 = vertical[r - 1, c - 1], vertical[r - 1, c]
+    even = (r + c) % 2 == 0
+    ratio = np.where(even, (v1 / h1) * (v2 / h2), (h1 / v1) * (h2 / v2))
+    return probability_thresholds(1.0 / (1.0 + ratio))
+
+
+def probability_thresholds(p: np.ndarray) -> np.ndarray:
+    """Integer thresholds over 2^64 for probabilities p, kept within [1, 2^64 - 1].
+
+    A threshold of 0 or 2^64 would forbid one of the two moves at a site, so the
+    chain could no longer reach every configuration and coupling from the past
+    would never coalesce; clamping changes each probability by at most 2^-64.
+    """
+    p = np.asarray(p, dtype=float)
+    if np.any(np.isnan(p)):
+        raise ValueError("a local probability is not a number; check the weights")
+    scaled = np.ldexp(np.clip(p, 0.0, 1.0), 64)
     out = np.empty(len(p), dtype=np.uint64)
     full = scaled >= 2.0**64
     out[full] = np.uint64(2**64 - 1)
-    out[~full] = scaled[~full].astype(np.uint64)
+    out[~full] = np.maximum(scaled[~full], 1.0).astype(np.uint64)
     return out

@@ -21,7 +21,7 @@ from typing import Any, Callable, Dict, Iterable, Optional, Tuple
 import numpy as np
 
 from frostline._limits import check_memory
-from frostline.height_walk import integrate, refuse_holes, walk_boundary
+from frostline.height_walk import integrate, walk_boundary
 from frostline.model import HeightModel, ProgressHook
 from frostline.region import Region, StartLike
 
@@ -66,18 +66,8 @@ class LozengeRegion(LozengeTiles, Region):
         boundary_ends = [g.edge_ends(t, outer[t]) for t in range(3)]
         tails = np.concatenate([g.point_id(fp, fq) for fp, fq, _, _ in boundary_ends])
         heads = np.concatenate([g.point_id(tp, tq) for _, _, tp, tq in boundary_ends])
-        boundary, component = walk_boundary(tails, heads, 1, g.boundary_order(), g.point_residue, g.point_name)
-        # every boundary edge has one triangle inside: its piece must meet one boundary component
-        piece = g.triangle_pieces()
-        edge_piece = []
-        for t, (dx, dy) in enumerate(PARTNER):
-            p, q = np.nonzero(outer[t])
-            edge_piece.append(np.where(g.up[p, q], piece[p * ny + q], piece[nx * ny + (p + dx) * ny + (q + dy)]))
-        representative: Dict[int, int] = {}
-        for point, comp in component.items():
-            representative.setdefault(comp, point)
-        refuse_holes(np.concatenate(edge_piece), np.array([component[v] for v in tails.tolist()]),
-                     g.point_name, representative)
+        g.refuse_holes()
+        boundary, _ = walk_boundary(tails, heads, 1, g.boundary_order(), g.point_residue, g.point_name)
         # node numbering: free sites first (row-major on the grid), then boundary points
         node = np.full(g.up.shape, -1, dtype=np.int64)
         sites = np.argwhere(interior)

@@ -19,7 +19,7 @@ from typing import List, Tuple
 
 import numpy as np
 
-from frostline.height_walk import pieces
+from frostline.height_walk import refuse_holes
 
 MARGIN = 2
 #: partner down triangle of U(x, y) across edge type t: D(x + dx, y + dy)
@@ -115,13 +115,25 @@ class TriangleGrid:
         order = np.lexsort(((2 * p + q).ravel(), q.ravel()))
         return self.point_id(p.ravel()[order], q.ravel()[order])
 
-    def triangle_pieces(self) -> np.ndarray:
-        """Edge-connected piece of each triangle: ids up p*NY+q, down NX*NY + p*NY+q."""
+    def refuse_holes(self) -> None:
+        """Raise ValueError when triangles outside the region are enclosed by it (see frostline.height_walk)."""
         nx, ny = self.up.shape
-        inner, _ = self.edge_masks()
+        inner_all = [np.ones_like(self.up) for _ in PARTNER]
         a, b = [], []
         for t, (dx, dy) in enumerate(PARTNER):
-            p, q = np.nonzero(inner[t])
-            a.append(p * ny + q)
-            b.append(nx * ny + (p + dx) * ny + (q + dy))
-        return pieces(2 * nx * ny, np.concatenate(a), np.concatenate(b))
+            p, q = np.nonzero(inner_all[t])
+            ok = (p + dx >= 0) & (p + dx < nx) & (q + dy >= 0) & (q + dy < ny)
+            a.append(p[ok] * ny + q[ok])
+            b.append(nx * ny + (p[ok] + dx) * ny + (q[ok] + dy))
+        outside = ~np.concatenate([self.up.ravel(), self.down.ravel()])
+        edge = np.zeros((nx, ny), bool)
+        edge[0, :] = edge[-1, :] = edge[:, 0] = edge[:, -1] = True
+        border = np.concatenate([np.flatnonzero(edge.ravel()), nx * ny + np.flatnonzero(edge.ravel())])
+        ox, oy = self.origin
+
+        def name(k: int) -> str:
+            s, rest = divmod(k, nx * ny)
+            p, q = divmod(rest, ny)
+            return f"the {'down' if s else 'up'} triangle ({p + ox}, {q + oy})"
+
+        refuse_holes(outside, np.concatenate(a), np.concatenate(b), border, name)

@@ -48,6 +48,8 @@ def _weight(value: Any, name: str) -> float:
         raise ValueError(f"weight {name} must be finite and positive") from None
     if not np.isfinite(v) or v <= 0:
         raise ValueError(f"weight {name} must be finite and positive, got {value!r}")
+    if not 1e-30 < v < 1e30:
+        raise ValueError(f"weight {name} = {v:g} is extreme; only ratios of a, b, c matter, so rescale them")
     return v
 
 
@@ -69,7 +71,8 @@ def weight_table(a: float, b: float, c: float) -> np.ndarray:
             zero = w[CELL_WEIGHT[k]]
             ratio *= cf / zero if pattern >> k & 1 else zero / cf
         p = ratio / (1 + ratio)
-        table[pattern] = min(p.numerator * 2**64 // p.denominator, 2**64 - 1)
+        # kept within [1, 2^64 - 1]: a forbidden move would stop the chains from ever meeting
+        table[pattern] = max(1, min(p.numerator * 2**64 // p.denominator, 2**64 - 1))
     return table
 
 
