@@ -91,13 +91,13 @@ def test_domino_commands(tmp_path, capsys):
 
 
 def test_square_ice_commands(tmp_path, capsys):
-    assert main(["count", "ice", "6"]) == 0
+    assert main(["count", "square_ice", "6"]) == 0
     assert capsys.readouterr().out.strip() == "7436"  # OEIS A005130
     for view in ("vertices", "matrix", "heights"):
         picture = tmp_path / f"ice-{view}.png"
-        assert main(["sample", "ice", "12", "--seed", "3", "--view", view, "--picture", str(picture)]) == 0
+        assert main(["sample", "square_ice", "12", "--seed", "3", "--view", view, "--picture", str(picture)]) == 0
         assert picture.stat().st_size > 1000
-    assert main(["sample", "ice", "6", "--weights", "1", "2", "1.9"]) == 2
+    assert main(["sample", "square_ice", "6", "--weights", "1", "2", "1.9"]) == 2
     assert "non-monotone" in capsys.readouterr().err
 
 
@@ -106,7 +106,7 @@ def test_density_pictures(tmp_path, capsys):
         picture = tmp_path / f"{argv[1]}.png"
         assert main(argv + ["--picture", str(picture)]) == 0
         assert picture.stat().st_size > 5000
-    assert main(["density", "ice", "4", "--picture", str(tmp_path / "ice.png")]) == 2
+    assert main(["density", "square_ice", "4", "--picture", str(tmp_path / "ice.png")]) == 2
     assert "no Kasteleyn matrix" in capsys.readouterr().err
 
 

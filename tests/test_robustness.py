@@ -137,3 +137,62 @@ def test_cli_checks_outputs_before_sampling(monkeypatch, capsys, tmp_path):
     assert main(["sample", "hexagon", "3", "3", "3", "--output", "x.zip"]) == 2
     err = capsys.readouterr().err
     assert "format" in err and "does not exist" in err and ".npz" in err
+
+
+def test_extreme_domino_weights_are_refused_not_misused():
+    with pytest.raises(ValueError, match="span"):
+        fl.domino.rectangle(2, 4, horizontal=np.full((2, 3), 1e200))
+
+
+def test_local_probabilities_never_forbid_a_move():
+    from frostline.domino.weights import probability_thresholds
+
+    t = probability_thresholds(np.array([0.0, 1.0, 1e-30, 0.5]))
+    assert t[0] == 1 and t[1] == 2**64 - 1 and t[2] >= 1 and t[3] == 2**63
+    table = fl.square_ice.weight_table(1.0, 1.0, 1e20 ** 0.5)
+    assert table.min() >= 1 and table.max() <= 2**64 - 1
+
+
+def test_pinched_and_enclosed_holes_are_named_as_holes():
+    # tileable regions around an unbalanced hole (found by the second review) are refused as holes
+    for mask in ([[1, 1, 1], [1, 0, 1], [1, 1, 1]], [[1, 1, 1, 0], [1, 0, 1, 1], [1, 1, 0, 0]]):
+        with pytest.raises(ValueError, match="has a hole"):
+            fl.domino.from_mask(np.array(mask, bool))
+
+
+def test_izergin_korepin_in_the_ill_conditioned_regime():
+    # Delta near -1 at n = 12 and a large n: compared with the exact row transfer and a closed form
+    from frostline.square_ice.conversions import domain_wall_boundary
+
+    z = fl.square_ice.izergin_korepin(10, 1, 2, 3.0000001)
+    exact = float(fl.square_ice.row_transfer(domain_wall_boundary(10), (1, 2, 3.0000001)))
+    assert float(z) == pytest.approx(exact, rel=1e-9)
+    # free fermion a = b = 1/sqrt 2, c = 1: Z_n = 1 for every n (REFERENCES.md section 1)
+    assert float(fl.square_ice.izergin_korepin(40, 2 ** -0.5, 2 ** -0.5, 1.0)) == pytest.approx(1.0, rel=1e-12)
+
+
+def test_absurd_boundary_paths_are_refused_before_expanding():
+    with pytest.raises(ValueError, match="unit steps"):
+        fl.lozenge.from_boundary("1000(1000(1000e))")
+
+
+def test_non_monotone_run_time_rule_refuses_exact_sampling():
+    rows = []
+    chain = [3, 0, 1, 2, 4]
+    for u, v in zip(chain, chain[1:]):
+        rows += [(u, v, 1), (v, u, 1)]
+    model = fl.HeightModel(3, np.array([0, 0]), np.array(rows), np.array([1, 0, 1]), 2, np.array([0, 1, 0]))
+    rule = {"context_start": np.array([0, 1, 1, 2]), "context_nodes": np.array([2, 0]),
+            "context_offset": np.array([0, 0, 0]), "context_table": np.array([2**63 + 2**62, 2**62], np.uint64)}
+    with pytest.raises(ValueError, match="not monotone"):
+        fl.custom.ModelRegion(model, rule=rule).sample(seed=0)
+
+
+def test_weighted_aztec_partition_function_scales():
+    # past order 16 the value comes from urban renewal in floating point: compare with the exact one at 17
+    from frostline.domino.urban_renewal import aztec_partition_function
+
+    R = fl.domino.aztec_diamond(17, two_periodic_weights=(1.0, 0.3))
+    exact = aztec_partition_function(17, *R.weights)
+    assert float(R.partition_function()) == pytest.approx(float(exact), rel=1e-9)
+    assert math.isfinite(float(fl.domino.aztec_diamond(60, two_periodic_weights=(1.0, 0.3)).partition_function()))

@@ -43,7 +43,7 @@ def _test_bits(rule: Optional[dict], count: int) -> np.ndarray:
 
 def check_monotone(target: Union[HeightModel, Any], *, q: float = 1.0, rule: Optional[dict] = None,
                    sites: Optional[Sequence[int]] = None, window: int = 1, random_words: int = 256,
-                   max_sites: int = 64) -> MonotonicityReport:
+                   max_sites: int = 4096) -> MonotonicityReport:
     """Check the heat-bath rule of a model (or of a region: its lowered model and rule).
 
     Parameters
@@ -51,7 +51,8 @@ def check_monotone(target: Union[HeightModel, Any], *, q: float = 1.0, rule: Opt
     target : HeightModel or Region
         A region supplies its own model, q and rule (``region.heat_bath_rule()``).
     q, rule : the rule for a bare HeightModel (see :meth:`HeightModel.sample`).
-    sites : which sites to check; default all, or ``max_sites`` spread evenly.
+    sites : which sites to check; default all, or ``max_sites`` spread evenly beyond that
+        (a site-dependent rule can then escape the check: pass ``sites`` to be thorough).
     window : neighbour heights range over +-window steps (1..4).
     """
     model = target

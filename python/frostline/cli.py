@@ -28,8 +28,8 @@ EXAMPLES = """examples:
   frostline sample trapezoid 12 6 --picture trapezoid.png
   frostline sample aztec 100 --picture aztec.png
   frostline sample aztec 60 --two-periodic 1 0.5 --method shuffling
-  frostline sample ice 80 --picture ice.png --view vertices
-  frostline sample ice 40 --weights 1 1 1.414 --picture matrix.pdf --view matrix
+  frostline sample square_ice 80 --picture ice.png --view vertices
+  frostline sample square_ice 40 --weights 1 1 1.414 --picture matrix.pdf --view matrix
   frostline count hexagon 6 6 6
   frostline density aztec 30 --picture aztec-densities.png
   frostline compare --sizes 30 60 100 --prefix comparison
@@ -76,7 +76,7 @@ def _add_shapes(parent: argparse.ArgumentParser, sampling: bool) -> None:
                                 description="Domino tilings of a region drawn as text: '#' a cell, '.' none, "
                                             "one line per row.")
     picture.add_argument("file", type=Path, help="the text file with the drawing")
-    ice = shapes.add_parser("ice", help="square ice (six-vertex model) with domain-wall boundary",
+    ice = shapes.add_parser("square_ice", help="square ice (six-vertex model) with domain-wall boundary",
                             description="Square ice on N x N vertices with domain-wall boundary (alternating sign "
                                         "matrices when uniform); vertex weights A, B, C.")
     ice.add_argument("size", type=int, help="N, the order of the matrices")
@@ -160,7 +160,7 @@ def _print_info(sample, out=None) -> None:
 def _region(args):
     from . import domino, lozenge, square_ice
 
-    if args.shape == "ice":
+    if args.shape == "square_ice":
         return square_ice.domain_wall(args.size, *args.weights)
     if args.shape == "aztec":
         return domino.aztec_diamond(args.order, vertical_weight=args.vertical_weight,

@@ -60,6 +60,14 @@ class ModelRegion(Region):
     def _run_exact(self, key, method, check_order, max_start_time, progress: ProgressHook):
         if method not in ("auto", "generic"):
             raise ValueError(f"method must be 'auto' or 'generic' for a run-time model, got {method!r}")
+        if self.rule is not None:  # a two-point rule may not be monotone: check before claiming exactness
+            from .checker import check_monotone
+
+            if not hasattr(self, "_monotone"):
+                self._monotone = check_monotone(self.model, q=self.q, rule=self.rule, max_sites=10**9)
+            if not self._monotone.monotone:
+                raise ValueError(f"this rule is not monotone ({self._monotone.detail}); coupling from the past "
+                                 "would not be exact. Use chain() and frostline.equilibrium_diagnostics")
         heights, report = self.model.sample(self.q, key, check_order=check_order, max_start_time=max_start_time,
                                             progress=progress, rule=self.rule)
         return np.asarray(heights[: self.model.n_sites], dtype=np.int32), report, "generic"

@@ -36,7 +36,8 @@ def metadata(sample: Sample) -> Dict[str, Any]:
         "format_version": FORMAT_VERSION,
         "lattice": sample.region.lattice,
         "region": region,
-        "weights": {k: v for k, v in region.items() if k in ("q",)},
+        "weights": {k: v for k, v in region.items()
+                    if k in ("q", "a", "b", "c", "vertical_weight", "two_periodic_weights", "weighted")},
         "seed": sample.info.as_dict()["seed"],
         "frostline_version": __version__,
         "diagnostics": {k: v for k, v in sample.info.as_dict().items() if k != "seed"},

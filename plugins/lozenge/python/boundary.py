@@ -37,6 +37,9 @@ def parse_path(text: str) -> List[Tuple[int, int]]:
     """
     if not isinstance(text, str):
         raise TypeError(f"a boundary path is a str such as '3e 3ne 3nw 3w 3sw 3se', got {type(text).__name__}")
+    if path_length(text) > MAX_STEPS:
+        raise ValueError(f"the boundary path has {path_length(text):.3g} unit steps, more than {MAX_STEPS:g}: "
+                         "its region would not fit in memory")
     tokens = []
     pos = 0
     stripped = text.rstrip()
@@ -81,6 +84,28 @@ def parse_path(text: str) -> List[Tuple[int, int]]:
 
     steps, _ = sequence(0, 0)
     return steps
+
+
+MAX_STEPS = 10**7  # a boundary of 10^7 unit steps already encloses far more than fits in memory
+
+
+def path_length(text: str) -> int:
+    """Number of unit steps a path in the notation expands to, computed without expanding it."""
+    total, stack, pending = 0, [], 1
+    for m in _TOKEN.finditer(text):
+        number, word, opening, closing = m.group(1), m.group(2), m.group(3), m.group(4)
+        if number:
+            pending = int(number)
+        elif word:
+            total += pending
+            pending = 1
+        elif opening:
+            stack.append((total, pending))
+            total, pending = 0, 1
+        elif closing and stack:
+            outer, times = stack.pop()
+            total = outer + times * total
+    return total
 
 
 def format_path(steps: Sequence[Tuple[int, int]]) -> str:
