@@ -177,13 +177,9 @@ def test_absurd_boundary_paths_are_refused_before_expanding():
 
 
 def test_non_monotone_run_time_rule_refuses_exact_sampling():
-    rows = []
-    chain = [3, 0, 1, 2, 4]
-    for u, v in zip(chain, chain[1:]):
-        rows += [(u, v, 1), (v, u, 1)]
-    model = fl.HeightModel(3, np.array([0, 0]), np.array(rows), np.array([1, 0, 1]), 2, np.array([0, 1, 0]))
-    rule = {"context_start": np.array([0, 1, 1, 2]), "context_nodes": np.array([2, 0]),
-            "context_offset": np.array([0, 0, 0]), "context_table": np.array([2**63 + 2**62, 2**62], np.uint64)}
+    from reference.models import path_with_context_rule
+
+    model, rule = path_with_context_rule([2**63 + 2**62, 2**62])  # the chance falls as the context rises
     with pytest.raises(ValueError, match="not monotone"):
         fl.custom.ModelRegion(model, rule=rule).sample(seed=0)
 

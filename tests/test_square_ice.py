@@ -147,15 +147,11 @@ def test_checker_refutes_six_vertex_rules_with_c_below_max_a_b(weights):
 
 def test_checker_rejects_a_rule_built_to_be_non_monotone():
     # A context rule on a path whose chance of going up falls when the context node rises.
-    rows = []
-    chain = [3, 0, 1, 2, 4]
-    for u, v in zip(chain, chain[1:]):
-        rows += [(u, v, 1), (v, u, 1)]
-    model = fl.HeightModel(3, np.array([0, 0]), np.array(rows), np.array([1, 0, 1]), 2, np.array([0, 1, 0]))
-    rule = {"context_start": np.array([0, 1, 1, 2]), "context_nodes": np.array([2, 0]),
-            "context_offset": np.array([0, 0, 0]), "context_table": np.array([2**63 + 2**62, 2**62], np.uint64)}
+    from reference.models import path_with_context_rule
+
+    model, rule = path_with_context_rule([2**63 + 2**62, 2**62])
     assert not fl.check_monotone(model, rule=rule).monotone
-    rule["context_table"] = np.array([2**62, 2**63], np.uint64)  # rising with the context: monotone
+    model, rule = path_with_context_rule([2**62, 2**63])  # rising with the context: monotone
     assert fl.check_monotone(model, rule=rule).monotone
 
 
