@@ -39,32 +39,27 @@ private:
     template <bool pair>
     void run(std::int32_t* a, std::int32_t* b, std::int64_t time) const {
         const std::uint64_t base = sweep_base(key_, stream_, time);
-        const std::int64_t w = n_ + 1;
         if (table_.empty()) {  // uniform: two classes, (i + j) % 2, as the generic lowering uses then
             for (std::int32_t parity = 0; parity < 2; ++parity)
-                for (std::int32_t i = 1; i < n_; ++i) {
-                    const std::int32_t first = 1 + ((i + 1 + parity) & 1);
-                    std::uint64_t site = static_cast<std::uint64_t>(i - 1) * (n_ - 1) + (first - 1);
-                    for (std::int32_t j = first; j < n_; j += 2, site += 2) {
-                        const std::int64_t at = static_cast<std::int64_t>(i) * w + j;
-                        const std::uint64_t bits = site_bits(base, site);
-                        a[at] = draw(a, at, w, bits);
-                        if constexpr (pair) b[at] = draw(b, at, w, bits);
-                    }
-                }
+                for (std::int32_t i = 1; i < n_; ++i) update_row<pair>(a, b, i, 1 + ((i + 1 + parity) & 1), base);
             return;
         }
         for (std::int32_t colour = 0; colour < 4; ++colour)
-            for (std::int32_t i = 1 + ((colour >> 1) ^ 1); i < n_; i += 2) {
-                const std::int32_t first = 1 + ((colour & 1) ^ 1);
-                std::uint64_t site = static_cast<std::uint64_t>(i - 1) * (n_ - 1) + (first - 1);
-                for (std::int32_t j = first; j < n_; j += 2, site += 2) {
-                    const std::int64_t at = static_cast<std::int64_t>(i) * w + j;
-                    const std::uint64_t bits = site_bits(base, site);
-                    a[at] = draw(a, at, w, bits);
-                    if constexpr (pair) b[at] = draw(b, at, w, bits);
-                }
-            }
+            for (std::int32_t i = 1 + ((colour >> 1) ^ 1); i < n_; i += 2)
+                update_row<pair>(a, b, i, 1 + ((colour & 1) ^ 1), base);
+    }
+
+    // Every other corner of row i from column `first` on (one colour class's share of the row).
+    template <bool pair>
+    void update_row(std::int32_t* a, std::int32_t* b, std::int32_t i, std::int32_t first, std::uint64_t base) const {
+        const std::int64_t w = n_ + 1;
+        std::uint64_t site = static_cast<std::uint64_t>(i - 1) * (n_ - 1) + (first - 1);
+        for (std::int32_t j = first; j < n_; j += 2, site += 2) {
+            const std::int64_t at = static_cast<std::int64_t>(i) * w + j;
+            const std::uint64_t bits = site_bits(base, site);
+            a[at] = draw(a, at, w, bits);
+            if constexpr (pair) b[at] = draw(b, at, w, bits);
+        }
     }
 
     std::int32_t draw(const std::int32_t* h, std::int64_t at, std::int64_t w, std::uint64_t bits) const {
