@@ -288,7 +288,9 @@ class Region(abc.ABC):
         threads = _check_count(threads, "threads")
         if threads < 1:
             raise ValueError("threads must be at least 1")
-        children = normalise_seed(seed).spawn(k)
+        # spawn from a copy rebuilt from the record: spawning mutates a SeedSequence, and the
+        # same seed must give the same ensemble every time it is passed
+        children = seed_record(normalise_seed(seed)).sequence().spawn(k)
         stop = threading.Event()
 
         def hook(*_: Any) -> None:
