@@ -39,22 +39,11 @@ py::tuple sample(std::shared_ptr<height_model> model, const int_array& least, co
     if (least.size() != model->n_nodes() || greatest.size() != model->n_nodes())
         throw invalid_model("least and greatest states need one height per node");
     const auto [min_h, max_h] = height_range(least, greatest);
-    auto top = to_vector(greatest), bottom = to_vector(least);
-    const auto control = make_control(progress, max_start_time, check_order);
-    run_report report;
-    auto result = with_rule_spec(rule_spec, model->n_sites(), q, model->step(), min_h, max_h, [&](auto rule) {
+    const auto top = to_vector(greatest), bottom = to_vector(least);
+    return with_rule_spec(rule_spec, model->n_sites(), q, model->step(), min_h, max_h, [&](auto rule) {
         generic_sweeper<decltype(rule)> sweeper(*model, rule, make_key(word0, word1), stream::coupling_from_the_past);
-        std::vector<std::int32_t> out;
-        {
-            // Why release the GIL: one exact sample can take hours; other Python
-            // threads (and other samples) run meanwhile. The hook re-takes it.
-            py::gil_scoped_release free;
-            out = monotone_cftp(sweeper, top, bottom, control, report);
-        }
-        check_rule_fit(sweeper.rule());
-        return out;
+        return cftp_result(sweeper, top, bottom, progress, max_start_time, check_order);
     });
-    return py::make_tuple(to_array(result), report_dict(report));
 }
 
 std::shared_ptr<forward_chain> make_chain(std::shared_ptr<height_model> model, const int_array& start,
@@ -66,9 +55,7 @@ std::shared_ptr<forward_chain> make_chain(std::shared_ptr<height_model> model, c
     if (!model->is_valid(to_vector(start), why)) throw invalid_model("the start state is not a valid configuration: " + why);
     return with_rule_spec(rule_spec, model->n_sites(), q, model->step(), min_height, max_height, [&](auto rule) {
         generic_sweeper<decltype(rule)> sweeper(*model, rule, make_key(word0, word1), stream::forward_chain);
-        // The lambda keeps the model alive as long as the chain.
-        auto sweep = [model, sweeper](std::int32_t* h, std::int64_t t) { sweeper.sweep(h, t); };
-        return std::make_shared<forward_chain>(sweep, model->n_sites(), to_vector(start), time);
+        return chain_of(sweeper, to_vector(start), time, model);  // the chain keeps the model alive
     });
 }
 

@@ -35,19 +35,10 @@ py::tuple corner_sample(std::shared_ptr<corner_layout> layout, const int_array& 
     check_state(*layout, least, "least");
     check_state(*layout, greatest, "greatest");
     const auto top = to_vector(greatest), bottom = to_vector(least);
-    const auto control = make_control(progress, max_start_time, check_order);
-    run_report report;
-    auto result = with_rule_spec(rule_spec, layout->n_sites(), 1.0, 4, 0, 0, [&](auto rule) {
+    return with_rule_spec(rule_spec, layout->n_sites(), 1.0, 4, 0, 0, [&](auto rule) {
         corner_sweeper<decltype(rule)> sweeper(*layout, rule, make_key(word0, word1), stream::coupling_from_the_past);
-        std::vector<std::int32_t> out;
-        {
-            py::gil_scoped_release free;  // long exact runs; the hook re-takes the GIL for Ctrl-C
-            out = monotone_cftp(sweeper, top, bottom, control, report);
-        }
-        check_rule_fit(sweeper.rule());
-        return out;
+        return cftp_result(sweeper, top, bottom, progress, max_start_time, check_order);
     });
-    return py::make_tuple(to_array(result), report_dict(report));
 }
 
 std::shared_ptr<forward_chain> corner_chain(std::shared_ptr<corner_layout> layout, const int_array& start,
@@ -56,9 +47,7 @@ std::shared_ptr<forward_chain> corner_chain(std::shared_ptr<corner_layout> layou
     check_state(*layout, start, "start");
     return with_rule_spec(rule_spec, layout->n_sites(), 1.0, 4, 0, 0, [&](auto rule) {
         corner_sweeper<decltype(rule)> sweeper(*layout, rule, make_key(word0, word1), stream::forward_chain);
-        // the lambda owns the layout, so the chain may outlive the caller's handle
-        auto sweep = [layout, sweeper](std::int32_t* h, std::int64_t t) { sweeper.sweep(h, t); };
-        return std::make_shared<forward_chain>(sweep, layout->n_sites(), to_vector(start), time);
+        return chain_of(sweeper, to_vector(start), time, layout);  // the chain keeps the layout alive
     });
 }
 

@@ -59,6 +59,11 @@
 
 namespace frostline::domino {
 
+// The random stream of domino shuffling: declared as "domino_shuffling" in the
+// domino LatticeSpec (domino/__init__.py); the value is part of the golden
+// samples and never changes.
+constexpr stream shuffling_stream = static_cast<stream>(3);
+
 namespace shuffling_detail {
 
 // Edge bits of a face state.
@@ -428,7 +433,7 @@ inline std::vector<std::int32_t> aztec_shuffle(std::int64_t n, const double* hor
     poller poll(control);
     face_grids faces(n);
     auto grow = [&](std::int64_t k, const auto& choice) {
-        faces.step(k, choice, sweep_base(key, stream::domino_shuffling, k));
+        faces.step(k, choice, sweep_base(key, shuffling_stream, k));
         poll.add(k * k, k);
     };
 

@@ -26,14 +26,12 @@ py::tuple box_sample(std::int32_t a, std::int32_t b, std::int32_t c, double q, s
     check_box(a, b, c);
     const box_layout layout(a, b, c);
     const auto top = layout.state(c), bottom = layout.state(0);
-    const auto control = make_control(progress, max_start_time, check_order);
-    run_report report;
-    auto result = with_rule(q, 1, 0, c, [&](auto rule) {
+    // the engine works on the padded layout; Python gets the a x b plane partition
+    auto cells = [&layout](const std::vector<std::int32_t>& h) { return as_cells(layout, h); };
+    return with_rule(q, 1, 0, c, [&](auto rule) {
         box_sweeper<decltype(rule)> sweeper(layout, rule, make_key(word0, word1), stream::coupling_from_the_past);
-        py::gil_scoped_release free;  // long exact runs; the hook re-takes the GIL for Ctrl-C
-        return monotone_cftp(sweeper, top, bottom, control, report);
+        return cftp_result(sweeper, top, bottom, progress, max_start_time, check_order, cells);
     });
-    return py::make_tuple(as_cells(layout, result), report_dict(report));
 }
 
 std::shared_ptr<forward_chain> box_chain(std::int32_t a, std::int32_t b, std::int32_t c, double q,
@@ -44,8 +42,7 @@ std::shared_ptr<forward_chain> box_chain(std::int32_t a, std::int32_t b, std::in
     const box_layout layout(a, b, c);
     return with_rule(q, 1, 0, c, [&](auto rule) {
         box_sweeper<decltype(rule)> sweeper(layout, rule, make_key(word0, word1), stream::forward_chain);
-        auto sweep = [sweeper](std::int32_t* h, std::int64_t t) { sweeper.sweep(h, t); };
-        return std::make_shared<forward_chain>(sweep, sweeper.n_sites(), layout.from_cells(start.data()), time);
+        return chain_of(sweeper, layout.from_cells(start.data()), time);
     });
 }
 

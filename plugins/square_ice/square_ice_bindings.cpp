@@ -35,15 +35,7 @@ void register_square_ice(py::module_& parent) {
         auto sweeper = make_sweeper(n, table, word0, word1, stream::coupling_from_the_past);
         check_size(n, least, "least");
         check_size(n, greatest, "greatest");
-        const auto top = to_vector(greatest), bottom = to_vector(least);
-        const auto control = make_control(progress, max_start_time, check_order);
-        run_report report;
-        std::vector<std::int32_t> out;
-        {
-            py::gil_scoped_release free_gil;  // long exact runs; the hook re-takes the GIL for Ctrl-C
-            out = monotone_cftp(sweeper, top, bottom, control, report);
-        }
-        return py::make_tuple(to_array(out), report_dict(report));
+        return cftp_result(sweeper, to_vector(greatest), to_vector(least), progress, max_start_time, check_order);
     }, py::arg("n"), py::arg("table"), py::arg("least"), py::arg("greatest"), py::arg("key0"),
        py::arg("key1"), py::arg("check_order") = false, py::arg("max_start_time") = std::int64_t(1) << 40,
        py::arg("progress") = py::none(), "Exact square-ice heights by CFTP with the fast kernel: (heights, report).");
@@ -51,8 +43,7 @@ void register_square_ice(py::module_& parent) {
                           std::uint64_t word1, std::int64_t time) {
         auto sweeper = make_sweeper(n, table, word0, word1, stream::forward_chain);
         check_size(n, start, "start");
-        auto sweep = [sweeper](std::int32_t* h, std::int64_t t) { sweeper.sweep(h, t); };
-        return std::make_shared<forward_chain>(sweep, sweeper.n_sites(), to_vector(start), time);
+        return chain_of(sweeper, to_vector(start), time);
     }, py::arg("n"), py::arg("table"), py::arg("start"), py::arg("key0"), py::arg("key1"),
        py::arg("time") = 0);
 }

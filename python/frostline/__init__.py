@@ -17,8 +17,8 @@ from __future__ import annotations
 
 from typing import Any
 
-from ._version import __version__
 from . import custom
+from ._version import __version__
 from .checker import ModelReport, MonotonicityReport, check_model, check_monotone
 from .diagnostics import ChainDiagnostics, equilibrium_diagnostics
 from .errors import FrostlineWarning, RegionTooLargeError

@@ -32,16 +32,16 @@ class engine:
     ForwardChain = ForwardChain
 
     @staticmethod
-    def extremes(model: "engine.HeightModel") -> Tuple[IntArray, IntArray]: ...
+    def extremes(model: engine.HeightModel) -> Tuple[IntArray, IntArray]: ...
     @staticmethod
-    def sample(model: "engine.HeightModel", least: IntArray, greatest: IntArray, q: float, key0: int, key1: int,
+    def sample(model: engine.HeightModel, least: IntArray, greatest: IntArray, q: float, key0: int, key1: int,
                check_order: bool = ..., max_start_time: int = ..., progress: ProgressHook = ...,
                rule: Optional[dict] = ...) -> Tuple[IntArray, dict]: ...
     @staticmethod
-    def generic_chain(model: "engine.HeightModel", start: IntArray, min_height: int, max_height: int, q: float,
+    def generic_chain(model: engine.HeightModel, start: IntArray, min_height: int, max_height: int, q: float,
                       key0: int, key1: int, time: int = ..., rule: Optional[dict] = ...) -> ForwardChain: ...
     @staticmethod
-    def check_monotone(model: "engine.HeightModel", q: float, rule: Optional[dict], sites: npt.ArrayLike,
+    def check_monotone(model: engine.HeightModel, q: float, rule: Optional[dict], sites: npt.ArrayLike,
                        window: int, test_bits: npt.NDArray[np.uint64]) -> dict: ...
     @staticmethod
     def connected_components(n: int, a: npt.ArrayLike, b: npt.ArrayLike) -> npt.NDArray[np.int64]: ...
@@ -67,11 +67,11 @@ class domino:
         def n_sites(self) -> int: ...
 
     @staticmethod
-    def corner_sample(layout: "domino.CornerLayout", least: IntArray, greatest: IntArray, rule: Optional[dict],
+    def corner_sample(layout: domino.CornerLayout, least: IntArray, greatest: IntArray, rule: Optional[dict],
                       key0: int, key1: int, check_order: bool = ..., max_start_time: int = ...,
                       progress: ProgressHook = ...) -> Tuple[IntArray, dict]: ...
     @staticmethod
-    def corner_chain(layout: "domino.CornerLayout", start: IntArray, rule: Optional[dict], key0: int, key1: int,
+    def corner_chain(layout: domino.CornerLayout, start: IntArray, rule: Optional[dict], key0: int, key1: int,
                      time: int = ...) -> ForwardChain: ...
     @staticmethod
     def aztec_shuffle(n: int, horizontal: Optional[npt.ArrayLike] = ..., vertical: Optional[npt.ArrayLike] = ...,

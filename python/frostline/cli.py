@@ -13,13 +13,14 @@ about every 10^8 site updates; nothing is written for an unfinished sample.
 from __future__ import annotations
 
 import argparse
-import math
 import sys
 import time
+import warnings
 from pathlib import Path
-from typing import Optional, Sequence
+from typing import Any, Dict, Optional, Sequence, Tuple
 
 from ._version import __version__
+from .errors import FrostlineWarning
 
 EXAMPLES = """examples:
   frostline sample hexagon 40 40 40 --seed 1 --picture hexagon.png
@@ -40,58 +41,48 @@ boundary paths: unit steps e, ne, nw, w, sw, se with counts, groups in
 parentheses; the path must close without touching itself."""
 
 
+def _shape_table() -> Dict[str, Tuple[str, Any]]:
+    """Every CLI shape of every registered lattice: name -> (lattice, Shape).
+
+    Read from the lattices' declarations, so an outside plugin's shapes appear
+    here with no change to frostline. A shape name taken by two lattices keeps
+    the first (by lattice name) and the other is skipped with a warning.
+    """
+    from .registry import specs
+
+    table: Dict[str, Tuple[str, Any]] = {}
+    for spec in specs():
+        for shape in spec.shapes:
+            if shape.name in table:
+                warnings.warn(f"the shape {shape.name!r} of lattice {spec.name!r} is already taken by lattice "
+                              f"{table[shape.name][0]!r}; skipped", FrostlineWarning, stacklevel=2)
+                continue
+            table[shape.name] = (spec.name, shape)
+    return table
+
+
 def _add_shapes(parent: argparse.ArgumentParser, sampling: bool) -> None:
     shapes = parent.add_subparsers(dest="shape", metavar="SHAPE", required=True)
-    hexagon = shapes.add_parser("hexagon", help="the A, B, C hexagon (plane partitions in a box)",
-                                description="Lozenge tilings of the A, B, C hexagon = plane partitions in an A x B x C box.")
-    hexagon.add_argument("sides", type=int, nargs=3, metavar="SIDE",
-                         help="three side lengths A B C: plane partitions in an A x B x C box")
-    path = shapes.add_parser("path", help="the region inside a boundary path",
-                             description="Lozenge tilings of the region inside a boundary path, e.g. "
-                                         "\"4e 3ne 5nw 4w 3sw 5se\" (steps e, ne, nw, w, sw, se; counts; groups).")
-    source = path.add_mutually_exclusive_group(required=True)
-    source.add_argument("path", nargs="?", help="the boundary path, quoted")
-    source.add_argument("--file", type=Path, help="read the boundary path from this text file")
-    trapezoid = shapes.add_parser("trapezoid", help="a trapezoid with notches in its top row",
-                                  description="A trapezoid widening upwards (BOTTOM e, HEIGHT ne, BOTTOM+HEIGHT w, "
-                                              "HEIGHT se) with HEIGHT down triangles removed from its top row.")
-    trapezoid.add_argument("bottom", type=int, help="length of the bottom side")
-    trapezoid.add_argument("height", type=int, help="number of rows (and of notches)")
-    trapezoid.add_argument("--notches", type=int, nargs="+", default=None,
-                           help="positions 0 .. BOTTOM+HEIGHT-1 of the removed top triangles (default: spread evenly)")
-    for p in (hexagon, path, trapezoid):
-        p.add_argument("--q", type=float, default=1.0,
-                       help="weight per unit cube (q ** volume); 1 is uniform (default)")
-    aztec = shapes.add_parser("aztec", help="domino tilings of the Aztec diamond of order N",
-                              description="Domino tilings of the Aztec diamond of order N (2N(N+1) cells).")
-    aztec.add_argument("order", type=int, help="the order N")
-    weights = aztec.add_mutually_exclusive_group()
-    weights.add_argument("--vertical-weight", type=float, default=None, help="weight of every vertical domino")
-    weights.add_argument("--two-periodic", type=float, nargs=2, default=None, metavar=("A", "B"),
-                         help="two-periodic weights A and B (gas phase in the middle when A != B)")
-    rectangle = shapes.add_parser("rectangle", help="domino tilings of a ROWS x COLUMNS rectangle")
-    rectangle.add_argument("rows", type=int)
-    rectangle.add_argument("columns", type=int)
-    picture = shapes.add_parser("picture", help="domino tilings of a region drawn in a text file",
-                                description="Domino tilings of a region drawn as text: '#' a cell, '.' none, "
-                                            "one line per row.")
-    picture.add_argument("file", type=Path, help="the text file with the drawing")
-    ice = shapes.add_parser("square_ice", help="square ice (six-vertex model) with domain-wall boundary",
-                            description="Square ice on N x N vertices with domain-wall boundary (alternating sign "
-                                        "matrices when uniform); vertex weights A, B, C.")
-    ice.add_argument("size", type=int, help="N, the order of the matrices")
-    ice.add_argument("--weights", type=float, nargs=3, default=(1.0, 1.0, 1.0), metavar=("A", "B", "C"),
-                     help="vertex weights a, b, c (exact sampling needs c >= max(a, b)); default 1 1 1")
-    if sampling:
-        ice.add_argument("--view", default="vertices", choices=["vertices", "matrix", "heights"],
-                         help="what the picture shows (default: vertex types)")
-    for p in (hexagon, path, trapezoid, aztec, rectangle, picture, ice):
+    for name, (_, shape) in _shape_table().items():
+        p = shapes.add_parser(name, help=shape.help, description=shape.description or shape.help)
+        groups: Dict[str, Any] = {}
+        for argument in shape.arguments:
+            if argument.style is not None and not sampling:
+                continue
+            target: Any = p
+            if argument.exclusive is not None:
+                if argument.exclusive not in groups:
+                    groups[argument.exclusive] = p.add_mutually_exclusive_group(
+                        required=argument.exclusive in shape.required)
+                target = groups[argument.exclusive]
+            argument.add_to(target)
         if sampling:
             p.add_argument("--seed", type=int, default=None,
                            help="non-negative int; the same seed gives the same sample (default: fresh, printed)")
             p.add_argument("--method", default="auto",
-                           help="exact sampler: auto (default, the fastest), generic (reference engine), "
-                                "box (hexagons), cftp or shuffling (dominoes)")
+                           help="exact sampler: auto (default: the region's fixed choice), cftp (coupling from the "
+                                "past, fastest kernel), generic (reference engine) or a method of the region such "
+                                "as box or shuffling")
             p.add_argument("--picture", type=Path, default=None, help="write a picture (.png, .svg or .pdf)")
             p.add_argument("--output", type=Path, default=None,
                            help="write the sample to a .npz file (heights, tiles, metadata record)")
@@ -136,6 +127,9 @@ def _parser() -> argparse.ArgumentParser:
     demo.add_argument("--seed", type=int, default=2026, help="seed (default 2026)")
     demo.add_argument("--folder", type=Path, default=Path("frostline-demo"),
                       help="where pictures go (default ./frostline-demo)")
+    commands.add_parser("lattices", help="list the registered lattices with their shapes",
+                        description="Every lattice frostline finds (built in and installed plugins), its shapes, "
+                                    "closed forms and theory curves.")
     return parser
 
 
@@ -144,12 +138,14 @@ def _print_info(sample, out=None) -> None:
     info = sample.info.as_dict()
     region = sample.region.describe()
     rows = [("region", " ".join(f"{k}={v}" for k, v in region.items()))]
-    rows += [(k.replace("_", " "), v) for k, v in info.items() if k != "seed"]
+    rows += [(k, info[k]) for k in ("method", "kernel", "seconds", "version")]
+    rows += [(k.replace("_", " "), v) for k, v in info["report"].items()]
     rows.append(("seed entropy", info["seed"]["entropy"]))
     if info["seed"]["spawn_key"]:
         rows.append(("seed spawn key", info["seed"]["spawn_key"]))
-    if info["site_updates"] and info["seconds"] > 0:
-        rows.append(("site updates per second", f"{info['site_updates'] / info['seconds']:.3g}"))
+    updates = info["report"].get("site_updates", 0)
+    if updates and info["seconds"] > 0:
+        rows.append(("site updates per second", f"{updates / info['seconds']:.3g}"))
     width = max(len(k) for k, _ in rows)
     for k, v in rows:
         if isinstance(v, float):
@@ -158,23 +154,14 @@ def _print_info(sample, out=None) -> None:
 
 
 def _region(args):
-    from . import domino, lozenge, square_ice
+    _, shape = _shape_table()[args.shape]
+    values = {a.name: getattr(args, a.name) for a in shape.arguments if a.style is None}
+    return shape.build(**{k: v for k, v in values.items() if v is not None})
 
-    if args.shape == "square_ice":
-        return square_ice.domain_wall(args.size, *args.weights)
-    if args.shape == "aztec":
-        return domino.aztec_diamond(args.order, vertical_weight=args.vertical_weight,
-                                    two_periodic_weights=tuple(args.two_periodic) if args.two_periodic else None)
-    if args.shape == "rectangle":
-        return domino.rectangle(args.rows, args.columns)
-    if args.shape == "picture":
-        return domino.from_picture(args.file.read_text())
-    if args.shape == "hexagon":
-        return lozenge.hexagon(*args.sides, q=args.q)
-    if args.shape == "trapezoid":
-        return lozenge.trapezoid(args.bottom, args.height, args.notches, q=args.q)
-    text = args.path if args.file is None else args.file.read_text()
-    return lozenge.from_boundary(" ".join(text.split()), q=args.q)
+
+def _style(args) -> dict:
+    _, shape = _shape_table()[args.shape]
+    return {a.style: getattr(args, a.name) for a in shape.arguments if a.style and hasattr(args, a.name)}
 
 
 def _check_outputs(picture: Optional[Path], output: Optional[Path]) -> None:
@@ -204,8 +191,7 @@ def _sample(args) -> int:
     progress.finish()
     print(f"exact sample of {region!r} in {time.perf_counter() - started:.3g} s")
     _print_info(sample)
-    style = {"kind": args.view} if getattr(args, "view", None) else {}
-    _write(sample, args.picture, getattr(args, "output", None), style)
+    _write(sample, args.picture, getattr(args, "output", None), _style(args))
     return 0
 
 
@@ -241,16 +227,15 @@ def _density(args) -> int:
 
 
 def _compare(args) -> int:
-    from . import domino, lozenge, plot, square_ice
+    from . import plot
     from .analysis.compare import compare, figure, table
+    from .registry import specs
 
     if any(n < 4 for n in args.sizes):
         raise ValueError("sizes must be at least 4")
     if not args.prefix.resolve().parent.is_dir():
         raise ValueError(f"the folder of {args.prefix} does not exist")
-    cases = [("lozenge hexagon", lambda n: lozenge.hexagon(n, n, n)),
-             ("domino Aztec diamond", lambda n: domino.aztec_diamond(n)),
-             ("square ice, domain wall", lambda n: square_ice.domain_wall(n))]
+    cases = [spec.comparison for spec in specs() if spec.comparison is not None]
     started = time.perf_counter()
     rows = compare(cases, args.sizes, seed=args.seed,
                    progress=lambda s: print(f"  {s} ({time.perf_counter() - started:.0f} s)", file=sys.stderr))
@@ -279,20 +264,35 @@ def _show(args) -> int:
 
 def _demo(args) -> int:
     from . import plot
-    from .lozenge import hexagon
+    from .registry import specs
 
-    n = args.size
-    q = args.q if args.q is not None else math.exp(-2.0 / max(n, 1))
     args.folder.mkdir(parents=True, exist_ok=True)
-    for label, region in (("uniform", hexagon(n, n, n)), ("weighted", hexagon(n, n, n, q=q))):
-        print(f"\n{label}: {region!r}")
-        sample = region.sample(seed=args.seed)
-        _print_info(sample)
-        volume = int(sample.heights.sum())
-        print(f"  volume (cubes)  {volume} of {n ** 3} (uniform limit shape: half the box)")
-        path = plot.save(sample, args.folder / f"hexagon-{label}.png", title=f"{label}, {n}x{n}x{n}"
-                         + (f", q = {q:.4g}" if label == "weighted" else ""))
-        print(f"  picture         {path}")
+    for spec in specs():
+        if spec.demo is None:
+            continue
+        for label, region, title, note in spec.demo(args.size, args.q):
+            print(f"\n{label}: {region!r}")
+            sample = region.sample(seed=args.seed)
+            _print_info(sample)
+            if note is not None:
+                print(f"  {note(sample)}")
+            path = plot.save(sample, args.folder / f"{label}.png", title=title)
+            print(f"  picture         {path}")
+    return 0
+
+
+def _lattices(args) -> int:
+    from .registry import specs
+
+    for spec in specs():
+        print(f"{spec.name}: {spec.summary}")
+        for shape in spec.shapes:
+            arguments = " ".join(a.name.upper() if a.flag is None else f"[{a.flag}]" for a in shape.arguments)
+            print(f"  shape {shape.name} {arguments}".rstrip() + f"  -- {shape.help}")
+        if spec.closed_forms:
+            print(f"  closed forms: {', '.join(spec.closed_forms)}")
+        for curve in spec.theory_curves:
+            print(f"  theory curve: {curve}")
     return 0
 
 
@@ -300,7 +300,7 @@ def main(argv: Optional[Sequence[str]] = None) -> int:
     """Entry point of the ``frostline`` command; returns the exit status."""
     args = _parser().parse_args(list(argv) if argv is not None else None)
     handlers = {"sample": _sample, "count": _count, "density": _density, "compare": _compare, "show": _show,
-                "demo": _demo}
+                "demo": _demo, "lattices": _lattices}
     try:
         return handlers[args.command](args)
     except KeyboardInterrupt:

@@ -17,13 +17,13 @@ counted by the Catalan numbers (OEIS A000108)::
 from __future__ import annotations
 
 from fractions import Fraction
-from typing import Any, Callable, Dict, Optional, Tuple
+from typing import Any, Dict, Optional
 
 import numpy as np
 
 from . import _core
-from .model import HeightModel, ProgressHook
-from .region import Region, Sample, StartLike
+from .model import HeightModel
+from .region import Region, Sample
 
 
 class ModelRegion(Region):
@@ -51,37 +51,26 @@ class ModelRegion(Region):
         self.model, self.q, self.rule, self.name = model, q, rule, str(name)
         self.least, self.greatest = (h[: model.n_sites] for h in model.extremes())  # validity, with clear errors
 
-    def _nodes(self, heights: np.ndarray) -> np.ndarray:
+    def nodes_from_heights(self, heights: np.ndarray) -> np.ndarray:
         h = np.asarray(heights)
         if h.shape != (self.model.n_sites,):
             raise ValueError(f"heights must have one entry per site ({self.model.n_sites})")
         return np.concatenate([h, self.model.boundary_values]).astype(np.int64)
 
-    def _run_exact(self, key, method, check_order, max_start_time, progress: ProgressHook):
-        if method not in ("auto", "generic"):
-            raise ValueError(f"method must be 'auto' or 'generic' for a run-time model, got {method!r}")
-        if self.rule is not None:  # a two-point rule may not be monotone: check before claiming exactness
-            from .checker import check_monotone
-
-            if not hasattr(self, "_monotone"):
-                self._monotone = check_monotone(self.model, q=self.q, rule=self.rule, max_sites=10**9)
-            if not self._monotone.monotone:
-                raise ValueError(f"this rule is not monotone ({self._monotone.detail}); coupling from the past "
-                                 "would not be exact. Use chain() and frostline.equilibrium_diagnostics")
-        heights, report = self.model.sample(self.q, key, check_order=check_order, max_start_time=max_start_time,
-                                            progress=progress, rule=self.rule)
-        return np.asarray(heights[: self.model.n_sites], dtype=np.int32), report, "generic"
-
-    def _make_chain(self, key, start: StartLike, method: str) -> Tuple[Any, Callable]:
-        if isinstance(start, str):
-            if start not in ("min", "max"):
-                raise ValueError(f"start must be 'min', 'max' or a height array, got {start!r}")
-            start = self.least if start == "min" else self.greatest
-        return (self.model.chain(self.q, key, self._nodes(start), rule=self.rule),
-                lambda h: np.asarray(h[: self.model.n_sites], dtype=np.int32))
-
     def heights_from_model(self, node_heights: np.ndarray) -> np.ndarray:
         return np.asarray(node_heights[: self.model.n_sites], dtype=np.int32)
+
+    def exactness_check(self) -> None:
+        """A two-point rule may not be monotone: check it (once) before claiming exactness."""
+        if self.rule is None:
+            return
+        from .checker import check_monotone
+
+        if not hasattr(self, "_monotone"):
+            self._monotone = check_monotone(self.model, q=self.q, rule=self.rule, max_sites=10**9)
+        if not self._monotone.monotone:
+            raise ValueError(f"this rule is not monotone ({self._monotone.detail}); coupling from the past "
+                             "would not be exact. Use chain() and frostline.equilibrium_diagnostics")
 
     def tiles_from_heights(self, heights: np.ndarray) -> np.ndarray:
         h = np.asarray(heights)

@@ -19,8 +19,7 @@ import numpy as np
 
 from ._version import __version__
 from .region import Sample, SampleInfo
-from .registry import lattice
-from .seeding import SeedRecord
+from .registry import spec
 
 FORMAT = "frostline-sample"
 FORMAT_VERSION = 1
@@ -36,8 +35,7 @@ def metadata(sample: Sample) -> Dict[str, Any]:
         "format_version": FORMAT_VERSION,
         "lattice": sample.region.lattice,
         "region": region,
-        "weights": {k: v for k, v in region.items()
-                    if k in ("q", "a", "b", "c", "vertical_weight", "two_periodic_weights", "weighted")},
+        "weights": {k: v for k, v in region.items() if k in spec(sample.region.lattice).weight_keys},
         "seed": sample.info.as_dict()["seed"],
         "frostline_version": __version__,
         "diagnostics": {k: v for k, v in sample.info.as_dict().items() if k != "seed"},
@@ -81,10 +79,18 @@ def load(path: PathLike) -> Sample:
     if record.get("format") != FORMAT or record.get("format_version", 0) > FORMAT_VERSION:
         raise ValueError(f"{path} holds format {record.get('format')!r} version {record.get('format_version')}, "
                          f"which frostline {__version__} does not read")
-    plugin = lattice(record["lattice"])
-    region = plugin.region_from_record(record["region"], arrays)
-    diagnostics = dict(record["diagnostics"])
-    diagnostics.pop("version", None)
-    seed = SeedRecord.from_dict(record["seed"])
-    info = SampleInfo(seed=seed, version=record["frostline_version"], **diagnostics)
+    declared = spec(record["lattice"])
+    if declared.region_from_record is None:
+        raise ValueError(f"the lattice {declared.name!r} does not rebuild regions from files")
+    region = declared.region_from_record(record["region"], arrays)
+    info = SampleInfo.from_dict({**_diagnostics(record["diagnostics"]), "seed": record["seed"],
+                                 "version": record["frostline_version"]})
     return Sample(region=region, heights=heights, info=info)
+
+
+def _diagnostics(d: Dict[str, Any]) -> Dict[str, Any]:
+    """Diagnostics in the current layout; files of format 1 kept the CFTP figures at the top level."""
+    if "report" in d:
+        return dict(d)
+    top = {"method", "kernel", "seconds", "version"}
+    return {**{k: d[k] for k in top if k in d}, "report": {k: v for k, v in d.items() if k not in top}}

@@ -1,166 +1,37 @@
-"""Lattice-independent pieces of the public API: Region, Sample, SampleInfo, Chain.
+"""The lattice-independent face of a region: :class:`Region`.
 
-A plugin subclasses :class:`Region` and supplies the lattice-specific parts
-(lowering to the generic model, heights and tiles conventions, counts,
-drawing). Everything here works on arrays and never looks at a lattice name.
+A plugin subclasses :class:`Region` and supplies what only it knows: its
+kernels (the tables of :mod:`frostline.methods`), the generic lowering
+(``heat_bath_rule``, ``heights_from_model``, ``nodes_from_heights``), heights
+and tiles conventions, counts and drawing. Method selection, seeds, start
+states, reports and ensembles live here once. Nothing here looks at a lattice
+name.
 """
 from __future__ import annotations
 
 import abc
-from dataclasses import asdict, dataclass, field
 from typing import Any, Callable, Dict, List, Optional, Tuple, Union
 
 import numpy as np
 
-from ._version import __version__
-from .model import ProgressHook
-from .seeding import SeedLike, SeedRecord, engine_key, normalise_seed, seed_record
-
-
-@dataclass(frozen=True)
-class SampleInfo:
-    """Diagnostics of one exact sample.
-
-    Attributes
-    ----------
-    method : str
-        ``"cftp"`` (monotone coupling from the past) or another exact method.
-    kernel : str
-        Which implementation ran (``"generic"`` or a plugin's fast kernel).
-    start_time : int
-        T, in sweeps: the run from time -T to 0 coalesced (0: one configuration).
-    coalescence_time : int
-        Sweeps after -T at which the top and bottom chains met.
-    site_updates : int
-        Heat-bath updates done, both chains and every epoch counted.
-    epochs : int
-        Doubling epochs run.
-    seconds : float
-        Wall-clock time of the compiled run.
-    seed : SeedRecord
-        Entropy and spawn key of the SeedSequence (repeats the run).
-    version : str
-        frostline version (same seed and version give the same sample).
-    """
-
-    method: str
-    kernel: str
-    start_time: int
-    coalescence_time: int
-    site_updates: int
-    epochs: int
-    seconds: float
-    seed: SeedRecord
-    version: str = __version__
-
-    def as_dict(self) -> Dict[str, Any]:
-        """Plain-data form (for printing and metadata records)."""
-        d = {k: v for k, v in asdict(self).items() if k != "seed"}
-        d["seed"] = self.seed.as_dict()
-        return d
-
-
-@dataclass(frozen=True, eq=False)
-class Sample:
-    """One configuration of a region.
-
-    ``heights`` follows the lattice's convention (documented by the plugin);
-    ``tiles`` is computed from the heights on first use.
-    """
-
-    region: "Region"
-    heights: np.ndarray
-    info: SampleInfo
-    _cache: Dict[str, Any] = field(default_factory=dict, repr=False)
-
-    @property
-    def tiles(self) -> np.ndarray:
-        """Every tile of the configuration, in the plugin's documented layout."""
-        if "tiles" not in self._cache:
-            self._cache["tiles"] = self.region.tiles_from_heights(self.heights)
-        return self._cache["tiles"]
-
-    def plot(self, ax: Any = None, **style: Any) -> Any:
-        """Draw the configuration with matplotlib; returns the Axes."""
-        return self.region.draw(self, ax=ax, **style)
-
-    def __getattr__(self, name: str) -> Any:
-        # extra views a plugin declares (e.g. ``matrix`` for square ice), computed once from the heights
-        if name.startswith("_"):
-            raise AttributeError(name)
-        views = self.region.sample_views()
-        if name not in views:
-            raise AttributeError(f"a {self.region.lattice} sample has no attribute {name!r}")
-        if name not in self._cache:
-            self._cache[name] = views[name](self.heights)
-        return self._cache[name]
-
-
-class Chain:
-    """A forward heat-bath Markov chain on a region, for studying the dynamics.
-
-    Each sweep updates every site once (colour class by colour class) with the
-    same counter-based random numbers as the exact sampler uses, keyed by the
-    chain's seed and the sweep's time index. ``run`` may be interrupted with
-    Ctrl-C; the state stays consistent and ``time`` counts the sweeps done.
-    """
-
-    def __init__(self, region: "Region", compiled: Any, sequence: np.random.SeedSequence,
-                 to_heights: Callable[[np.ndarray], np.ndarray]) -> None:
-        self.region = region
-        self._compiled = compiled
-        self._to_heights = to_heights
-        self.seed = seed_record(sequence)
-
-    @property
-    def time(self) -> int:
-        """Sweeps run so far."""
-        return int(self._compiled.time)
-
-    @property
-    def heights(self) -> np.ndarray:
-        """The current state in the lattice's height convention (a copy)."""
-        return self._to_heights(self._compiled.heights)
-
-    def run(self, sweeps: int, progress: ProgressHook = None) -> "Chain":
-        """Run ``sweeps`` sweeps (GIL released); returns self."""
-        sweeps = _check_count(sweeps, "sweeps")
-        self._compiled.run(sweeps, progress)
-        return self
-
-    def trace(self, observable: Callable[[np.ndarray], float], sweeps: int, every: int = 1) -> np.ndarray:
-        """Run ``sweeps`` sweeps, recording ``observable(heights)`` every ``every`` sweeps.
-
-        Returns a float array of length ``sweeps // every``.
-        """
-        sweeps = _check_count(sweeps, "sweeps")
-        every = _check_count(every, "every")
-        if every == 0:
-            raise ValueError("every must be at least 1")
-        values = np.empty(sweeps // every)
-        for k in range(values.size):
-            self.run(every)
-            values[k] = observable(self.heights)
-        return values
-
-
-def _check_count(value: Any, name: str) -> int:
-    if isinstance(value, bool) or not isinstance(value, (int, np.integer)):
-        raise TypeError(f"{name} must be an int, got {type(value).__name__}")
-    if value < 0:
-        raise ValueError(f"{name} must be non-negative, got {value}")
-    if value >= 2**62:
-        raise ValueError(f"{name} = {value} is beyond 2^62")
-    return int(value)
-
+from ._validate import count as _check_count
+from .chain import Chain
+from .methods import ChainKernel, EngineKey, ExactMethod, RunOptions, engine_report, resolve
+from .model import HeightModel, ProgressHook
+from .sample import Sample, SampleInfo
+from .seeding import SeedLike, engine_key, normalise_seed, seed_record
 
 StartLike = Union[str, np.ndarray]
+
+__all__ = ["Region", "Sample", "SampleInfo", "StartLike"]
 
 
 class Region(abc.ABC):
     """A finite region of some lattice with its weights.
 
-    Subclasses (one per plugin shape family) implement the abstract methods.
+    Subclasses (one per plugin shape family) implement the abstract methods
+    and may extend the tables returned by :meth:`exact_methods` and
+    :meth:`chain_kernels` with fast kernels.
     """
 
     #: registry name of the plugin (one lowercase word)
@@ -168,13 +39,16 @@ class Region(abc.ABC):
 
     # ----- what a plugin provides -------------------------------------------------
     @abc.abstractmethod
-    def _run_exact(self, key: Tuple[int, int], method: str, check_order: bool, max_start_time: int,
-                   progress: ProgressHook) -> Tuple[np.ndarray, dict, str]:
-        """Run an exact sampler; returns (heights, engine report, kernel name)."""
+    def heat_bath_rule(self) -> Tuple[HeightModel, float, Optional[dict]]:
+        """(generic HeightModel, q, rule) that the exact samplers run; see :func:`frostline.check_monotone`."""
 
     @abc.abstractmethod
-    def _make_chain(self, key: Tuple[int, int], start: StartLike, method: str) -> Tuple[Any, Callable]:
-        """A compiled forward chain and the map from its state to heights."""
+    def heights_from_model(self, node_heights: np.ndarray) -> np.ndarray:
+        """Heights in this lattice's convention from the generic model's node heights."""
+
+    @abc.abstractmethod
+    def nodes_from_heights(self, heights: np.ndarray) -> np.ndarray:
+        """The generic model's node heights (int64, one per node) from heights in this lattice's convention."""
 
     @abc.abstractmethod
     def tiles_from_heights(self, heights: np.ndarray) -> np.ndarray:
@@ -188,21 +62,35 @@ class Region(abc.ABC):
     def draw(self, sample: Sample, ax: Any = None, **style: Any) -> Any:
         """Draw a sample with matplotlib."""
 
+    def exact_methods(self) -> Dict[str, ExactMethod]:
+        """The exact samplers, by the name ``sample(method=...)`` takes.
+
+        The default is coupling from the past on the generic model, under the
+        names ``"cftp"`` and ``"generic"``; plugins put fast kernels first.
+        """
+        generic = self.generic_method()
+        return {"cftp": generic, "generic": generic}
+
+    def chain_kernels(self) -> Dict[str, ChainKernel]:
+        """The forward-chain implementations, by the name ``chain(method=...)`` takes."""
+        generic = self.generic_chain_kernel()
+        return {"cftp": generic, "generic": generic}
+
+    def auto_method(self) -> str:
+        """The method "auto" stands for: a fixed rule of the region (the first entry by default)."""
+        return next(iter(self.exact_methods()))
+
+    def exactness_check(self) -> None:
+        """Raise ValueError when coupling from the past would not be exact here (default: always exact)."""
+        return None
+
     def describe(self) -> Dict[str, Any]:
         """Plain-data (JSON-ready) description of the region and its weights."""
         return {"lattice": self.lattice}
 
-    def heat_bath_rule(self) -> Tuple[Any, float, Optional[dict]]:
-        """(generic HeightModel, q, rule) that the exact samplers run; see :func:`frostline.check_monotone`."""
-        raise NotImplementedError(f"{type(self).__name__} does not expose its heat-bath rule")
-
     def record_arrays(self) -> Dict[str, np.ndarray]:
         """Arrays that, with :meth:`describe`, rebuild the region (saved in sample files)."""
         return {}
-
-    def heights_from_model(self, node_heights: np.ndarray) -> np.ndarray:
-        """Heights in this lattice's convention from the generic model's node heights."""
-        raise NotImplementedError(f"{type(self).__name__} does not map generic heights")
 
     def configuration_weight(self, heights: np.ndarray) -> Any:
         """The (unnormalised, exact where possible) weight of the configuration with these heights."""
@@ -236,10 +124,60 @@ class Region(abc.ABC):
         """Named views of a sample computed from its heights (``Sample.<name>``); none by default."""
         return {}
 
+    # ----- the generic lowering, shared by every plugin ---------------------------
+    def generic_method(self) -> ExactMethod:
+        """Coupling from the past on the generic model: the reference every kernel is tested against."""
+        def run(key: EngineKey, options: RunOptions) -> Tuple[np.ndarray, Dict[str, Any]]:
+            model, q, rule = self.heat_bath_rule()
+            nodes, report = model.sample(q, key, check_order=options.check_order,
+                                         max_start_time=options.max_start_time, progress=options.progress, rule=rule)
+            return self.heights_from_model(nodes), report
+
+        return ExactMethod("cftp", "generic", run)
+
+    def generic_chain_kernel(self) -> ChainKernel:
+        """Forward chains on the generic model."""
+        def make(key: EngineKey, heights: np.ndarray) -> Tuple[Any, Callable[[np.ndarray], np.ndarray]]:
+            model, q, rule = self.heat_bath_rule()
+            return model.chain(q, key, self.nodes_from_heights(heights), rule=rule), self.heights_from_model
+
+        return ChainKernel("generic", make)
+
+    def extreme_heights(self) -> Tuple[np.ndarray, np.ndarray]:
+        """The least and greatest configurations (Thurston's algorithm), in this lattice's convention."""
+        least, greatest = self.heat_bath_rule()[0].extremes()
+        return self.heights_from_model(least), self.heights_from_model(greatest)
+
+    def check_heights(self, heights: Any) -> np.ndarray:
+        """``heights`` as an array of this region's layout, or ValueError/TypeError if it is not a configuration.
+
+        A configuration keeps the boundary, satisfies every difference
+        constraint and the residue rule of the generic model.
+        """
+        h = np.asarray(heights)
+        least = self.extreme_heights()[0]
+        if not np.issubdtype(h.dtype, np.integer):
+            raise TypeError(f"heights must hold integers, got dtype {h.dtype}")
+        if h.shape != least.shape:
+            raise ValueError(f"heights of this region have shape {least.shape}, got {h.shape}")
+        model = self.heat_bath_rule()[0]
+        nodes = np.asarray(self.nodes_from_heights(h), dtype=np.int64)
+        n = model.n_sites
+        c = model.constraints.astype(np.int64)
+        if not np.array_equal(nodes[n:], model.boundary_values):
+            raise ValueError("these heights change the region's fixed boundary")
+        bad = nodes[c[:, 1]] - nodes[c[:, 0]] > c[:, 2]
+        if bad.any():
+            raise ValueError(f"these heights are not a configuration of the region: {int(bad.sum())} neighbour "
+                             "differences break the height rule (see the lattice's conventions)")
+        if model.step > 1 and np.any((nodes[:n] - model.residues) % model.step):
+            raise ValueError(f"these heights break the residue rule (heights modulo {model.step})")
+        return h
+
     # ----- the shared API ------------------------------------------------------
     def sample(self, seed: SeedLike = None, *, method: str = "auto", check_order: bool = False,
                max_start_time: int = 2**40, progress: ProgressHook = None) -> Sample:
-        """One exact sample by monotone coupling from the past.
+        """One exact sample.
 
         Parameters
         ----------
@@ -247,8 +185,11 @@ class Region(abc.ABC):
             The same seed gives the identical sample on any machine; None draws
             fresh entropy, recorded in ``info.seed``.
         method : str
-            ``"auto"`` (fastest exact kernel), ``"generic"`` (the reference
-            engine) or a plugin's kernel name; all give the same sample.
+            ``"auto"`` (the region's default exact method, a fixed rule),
+            ``"cftp"`` (coupling from the past with the fastest kernel),
+            ``"generic"`` (the reference engine; the same sample as every
+            coupling-from-the-past kernel) or another of
+            ``exact_methods()`` (for example ``"shuffling"``; its own stream).
         check_order : bool
             Debug path: verify after every sweep that the top chain stays above
             the bottom one (slower).
@@ -259,14 +200,16 @@ class Region(abc.ABC):
         """
         sequence = normalise_seed(seed)
         record = seed_record(sequence)  # before the run: a bad seed fails fast
-        if not isinstance(method, str):
-            raise TypeError(f"method must be a str, got {type(method).__name__}")
         max_start_time = _check_count(max_start_time, "max_start_time")
         if max_start_time < 1:
             raise ValueError("max_start_time must be at least 1 sweep")
-        heights, report, kernel = self._run_exact(engine_key(sequence), method, bool(check_order),
-                                                  max_start_time, progress)
-        info = SampleInfo(method="cftp", kernel=kernel, seed=record, **report)
+        name, chosen = resolve(self.exact_methods(), method, self.auto_method(), "exact methods")
+        if chosen.family == "cftp":
+            self.exactness_check()
+        options = RunOptions(bool(check_order), max_start_time, progress)
+        heights, report = chosen.run(engine_key(sequence), options)
+        seconds, figures = engine_report(report)
+        info = SampleInfo(method=chosen.family, kernel=chosen.kernel, seconds=seconds, seed=record, report=figures)
         return Sample(region=self, heights=heights, info=info)
 
     def samples(self, k: int, seed: SeedLike = None, *, threads: Optional[int] = None, method: str = "auto",
@@ -288,6 +231,7 @@ class Region(abc.ABC):
         threads = _check_count(threads, "threads")
         if threads < 1:
             raise ValueError("threads must be at least 1")
+        resolve(self.exact_methods(), method, self.auto_method(), "exact methods")  # fail before spawning
         # spawn from a copy rebuilt from the record: spawning mutates a SeedSequence, and the
         # same seed must give the same ensemble every time it is passed
         children = seed_record(normalise_seed(seed)).sequence().spawn(k)
@@ -297,10 +241,11 @@ class Region(abc.ABC):
             if stop.is_set():  # raised inside the engine's poll: the sample is abandoned
                 raise KeyboardInterrupt
 
-        def one(child):
+        def one(child: np.random.SeedSequence) -> Sample:
             return self.sample(child, method=method, max_start_time=max_start_time, progress=hook)
 
         pool = ThreadPoolExecutor(max_workers=min(threads, max(k, 1)))
+        futures: list = []
         try:
             futures = [pool.submit(one, c) for c in children]
             pending = set(futures)
@@ -316,12 +261,29 @@ class Region(abc.ABC):
             pool.shutdown(wait=True)
 
     def chain(self, seed: SeedLike = None, start: StartLike = "min", *, method: str = "auto") -> Chain:
-        """A forward heat-bath chain from ``"min"``, ``"max"`` or a given height array."""
+        """A forward heat-bath chain from ``"min"``, ``"max"`` or a given height array.
+
+        ``method`` picks a chain kernel (``chain_kernels()``; "auto" is the
+        fastest, every kernel gives the same trajectory for a seed).
+        """
         sequence = normalise_seed(seed)
-        compiled, to_heights = self._make_chain(engine_key(sequence), start, method)
-        return Chain(self, compiled, sequence, to_heights)
+        kernels = self.chain_kernels()
+        _, kernel = resolve(kernels, method, next(iter(kernels)), "chain kernels")
+        heights = self._start_heights(start)
+        compiled, to_heights = kernel.make(engine_key(sequence), heights)
+        return Chain(self, compiled, sequence, to_heights, kernel.kernel)
+
+    def _start_heights(self, start: StartLike) -> np.ndarray:
+        if isinstance(start, str):
+            if start not in ("min", "max"):
+                raise ValueError(f"start must be 'min', 'max' or a height array, got {start!r}")
+            least, greatest = self.extreme_heights()
+            return least if start == "min" else greatest
+        try:
+            return self.check_heights(start)
+        except ValueError as exc:
+            raise ValueError(f"start is not a configuration of this region: {exc}") from None
 
     def partition_function(self) -> Any:
         """Weighted sum over configurations; the unweighted count by default."""
         return self.count()
-

@@ -35,7 +35,7 @@ class SeedRecord:
         return {"entropy": entropy, "spawn_key": list(self.spawn_key), "pool_size": self.pool_size}
 
     @classmethod
-    def from_dict(cls, d: dict) -> "SeedRecord":
+    def from_dict(cls, d: dict) -> SeedRecord:
         entropy = d["entropy"]
         entropy = tuple(int(v) for v in entropy) if isinstance(entropy, list) else int(entropy)
         return cls(entropy, tuple(int(v) for v in d["spawn_key"]), int(d.get("pool_size", 4)))

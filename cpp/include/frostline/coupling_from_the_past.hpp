@@ -86,6 +86,20 @@ private:
     std::int64_t since_poll_ = 0;
 };
 
+// The sweeper interface, stated for the compiler (C++17 detection idiom):
+//   std::int64_t n_sites() const;                       sites updated per sweep
+//   void sweep(std::int32_t* h, std::int64_t t) const;  one sweep at absolute time t,
+//                                                       random bits keyed by (key, stream, t, site)
+// and optionally sweep_pair(top, bottom, t), both chains in one pass with the
+// same bits. monotone_cftp and the binding templates refuse anything else.
+template <class Sweeper, class = void>
+struct is_sweeper : std::false_type {};
+template <class Sweeper>
+struct is_sweeper<Sweeper, std::void_t<decltype(std::int64_t{std::declval<const Sweeper&>().n_sites()}),
+                                       decltype(std::declval<const Sweeper&>().sweep(std::declval<std::int32_t*>(),
+                                                                                    std::int64_t{}))>>
+    : std::true_type {};
+
 // Sweeps both chains at time t: in one pass when the sweeper offers
 // sweep_pair (shared random bits, half the hashing), else one after the other.
 template <class Sweeper, class = void>
@@ -122,6 +136,8 @@ template <class Sweeper>
 std::vector<std::int32_t> monotone_cftp(const Sweeper& sweeper, const std::vector<std::int32_t>& greatest,
                                         const std::vector<std::int32_t>& least, const run_control& control,
                                         run_report& report) {
+    static_assert(detail::is_sweeper<Sweeper>::value,
+                  "a sweeper needs n_sites() const and sweep(std::int32_t*, std::int64_t) const");
     detail::stopwatch clock;
     detail::poller poll(control, clock);
     report = run_report{};

@@ -24,8 +24,11 @@ struct random_key {
     std::uint64_t word1 = 0;
 };
 
-// Stream numbers separate independent uses of one key.
-enum class stream : std::uint64_t { coupling_from_the_past = 1, forward_chain = 2, domino_shuffling = 3 };
+// Stream numbers separate independent uses of one key. The engine owns 1 and
+// 2; a lattice declares the ids of its own methods (3 and up) in its Python
+// LatticeSpec and writes them here as `static_cast<stream>(id)` (the registry
+// test checks that no two lattices share one).
+enum class stream : std::uint64_t { coupling_from_the_past = 1, forward_chain = 2 };
 
 // The per-sweep base: a hash of (key, stream, time). Sites of that sweep then
 // read the SplitMix64 sequence started at this base, at position site + 1.

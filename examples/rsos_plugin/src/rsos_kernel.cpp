@@ -66,15 +66,11 @@ py::tuple sample(std::int32_t rows, std::int32_t columns, std::int32_t max_heigh
     if (least.size() != padded || greatest.size() != padded)
         throw invalid_model("least and greatest are padded (rows + 2) x (columns + 2) arrays");
     const auto top = bindings::to_vector(greatest), bottom = bindings::to_vector(least);
-    const auto control = bindings::make_control(progress, std::int64_t(1) << 40, false);
-    run_report report;
-    auto out = bindings::with_rule(q, 1, 0, max_height, [&](auto rule) {
+    return bindings::with_rule(q, 1, 0, max_height, [&](auto rule) {
         surface_sweeper<decltype(rule)> sweeper(rows, columns, max_height, rule, bindings::make_key(key0, key1),
                                                stream::coupling_from_the_past);
-        py::gil_scoped_release free;  // long exact runs; the hook re-takes the GIL for Ctrl-C
-        return monotone_cftp(sweeper, top, bottom, control, report);
+        return bindings::cftp_result(sweeper, top, bottom, progress, std::int64_t(1) << 40, false);
     });
-    return py::make_tuple(bindings::to_array(out), bindings::report_dict(report));
 }
 
 }  // namespace rsos

@@ -1,35 +1,42 @@
-"""The closed forms in one place (each lives with its plugin; re-exported here).
+"""The closed forms of every lattice, in one place.
 
-- ``macmahon(a, b, c)``: plane partitions in a box (MacMahon 1916; OEIS A008793)
-- ``q_macmahon(a, b, c, q)``: its q-analogue, sum of q^volume
-- ``volume_polynomial(a, b, c)``: the coefficients of that q-analogue
-- ``aztec_count(n)``: 2^(n(n+1)/2) (Elkies, Kuperberg, Larsen, Propp 1992; OEIS A006125)
-- ``rectangle_count(m, n)``: Kasteleyn (1961), Temperley-Fisher (1961); OEIS A004003 on squares
-- ``asm_count(n)``: alternating sign matrices (Zeilberger 1996; Kuperberg 1996; OEIS A005130)
-- ``izergin_korepin(n, a, b, c)``: six-vertex domain-wall partition function (Korepin 1982; Izergin 1987)
+Each closed form lives with its lattice and is declared in its
+``LatticeSpec.closed_forms``; this module re-exports them by name (for the
+built-in lattices: ``macmahon``, ``q_macmahon``, ``volume_polynomial`` for
+lozenges, MacMahon 1916, OEIS A008793; ``aztec_count`` (Elkies, Kuperberg,
+Larsen, Propp 1992; OEIS A006125) and ``rectangle_count`` (Kasteleyn 1961;
+Temperley-Fisher 1961) for dominoes; ``asm_count`` (Zeilberger 1996; Kuperberg
+1996; OEIS A005130) and ``izergin_korepin`` (Korepin 1982; Izergin 1987) for
+square ice). An outside lattice's closed forms appear here too.
 """
 from __future__ import annotations
 
+from typing import Any, Callable, Dict, List
 
-def __getattr__(name: str):
-    from ..registry import lattice
 
-    table = {
-        "macmahon": ("lozenge", "macmahon"), "volume_polynomial": ("lozenge", "volume_polynomial"),
-        "q_macmahon": ("lozenge", "q_partition_function"),
-        "aztec_count": ("domino", "aztec_count"), "rectangle_count": ("domino", "rectangle_count"),
-        "asm_count": ("square_ice", "asm_count"), "izergin_korepin": ("square_ice", "izergin_korepin"),
-    }
-    if name not in table:
+def table() -> Dict[str, Callable[..., Any]]:
+    """Every declared closed form, by name (a name declared by two lattices is an error)."""
+    from ..registry import specs
+
+    out: Dict[str, Callable[..., Any]] = {}
+    owner: Dict[str, str] = {}
+    for spec in specs():
+        for name, function in spec.closed_forms.items():
+            if name in out and out[name] is not function:
+                raise ValueError(f"the closed form {name!r} is declared by lattices {owner[name]!r} and "
+                                 f"{spec.name!r}; one must rename it")
+            out[name], owner[name] = function, spec.name
+    return out
+
+
+def __getattr__(name: str) -> Any:
+    if name.startswith("_"):
         raise AttributeError(name)
-    plugin, attribute = table[name]
-    module = lattice(plugin)
-    if attribute == "q_partition_function":
-        from ..lozenge.counts import q_partition_function
-
-        return q_partition_function
-    return getattr(module, attribute)
+    forms = table()
+    if name not in forms:
+        raise AttributeError(f"no closed form named {name!r}; declared: {', '.join(sorted(forms))}")
+    return forms[name]
 
 
-# names provided lazily by __getattr__ (each closed form lives with its plugin)
-__all__ = ["asm_count", "aztec_count", "izergin_korepin", "macmahon", "q_macmahon", "rectangle_count", "volume_polynomial"]  # noqa: E501,F822
+def __dir__() -> List[str]:
+    return sorted(set(globals()) | set(table()))

@@ -7,6 +7,7 @@
 #include <pybind11/pybind11.h>
 
 #include <cstdint>
+#include <memory>
 #include <string>
 #include <vector>
 
@@ -113,6 +114,54 @@ void check_rule_fit(const Rule& rule) {
         throw invalid_model("the two-point (flip) rule met " + std::to_string(rule.wide_intervals()) +
                             " site updates with more than two allowed heights; it only suits models whose sites "
                             "have at most two allowed values");
+}
+
+// A sweeper whose local rule can report misuse (a two-point rule that met a
+// wider interval) offers rule(); those results are checked before returning.
+template <class Sweeper, class = void>
+struct has_rule : std::false_type {};
+template <class Sweeper>
+struct has_rule<Sweeper, std::void_t<decltype(std::declval<const Sweeper&>().rule().wide_intervals())>>
+    : std::true_type {};
+
+// Heights as a flat int32 array: the default shape of a CFTP result.
+struct flat_heights {
+    py::object operator()(const std::vector<std::int32_t>& h) const { return to_array(h); }
+};
+
+// The one binding sequence of an exact sample by coupling from the past, for
+// any sweeper: control (Ctrl-C, progress, limits) -> GIL released -> CFTP ->
+// rule check -> (finish(heights), report). Every kernel's binding calls this;
+// `finish` turns the kernel's layout into the array Python receives.
+template <class Sweeper, class Finish = flat_heights>
+py::tuple cftp_result(const Sweeper& sweeper, const std::vector<std::int32_t>& greatest,
+                      const std::vector<std::int32_t>& least, const py::object& progress,
+                      std::int64_t max_start_time, bool check_order, Finish finish = {}) {
+    static_assert(detail::is_sweeper<Sweeper>::value,
+                  "a sweeper needs n_sites() const and sweep(std::int32_t*, std::int64_t) const");
+    const auto control = make_control(progress, max_start_time, check_order);
+    run_report report;
+    std::vector<std::int32_t> out;
+    {
+        // Why release the GIL: one exact sample can take hours; other Python
+        // threads (and other samples) run meanwhile. The hook re-takes it.
+        py::gil_scoped_release free;
+        out = monotone_cftp(sweeper, greatest, least, control, report);
+    }
+    if constexpr (has_rule<Sweeper>::value) check_rule_fit(sweeper.rule());
+    return py::make_tuple(finish(out), report_dict(report));
+}
+
+// A forward chain driven by any sweeper. `owner` (a layout or model the
+// sweeper points into) is kept alive as long as the chain.
+template <class Sweeper>
+std::shared_ptr<forward_chain> chain_of(Sweeper sweeper, std::vector<std::int32_t> start, std::int64_t time,
+                                        std::shared_ptr<const void> owner = nullptr) {
+    static_assert(detail::is_sweeper<Sweeper>::value,
+                  "a sweeper needs n_sites() const and sweep(std::int32_t*, std::int64_t) const");
+    const std::int64_t n = sweeper.n_sites();
+    auto sweep = [owner, sweeper](std::int32_t* h, std::int64_t t) { sweeper.sweep(h, t); };
+    return std::make_shared<forward_chain>(sweep, n, std::move(start), time);
 }
 
 // Maps engine exceptions to Python types. Registered once by the core module.

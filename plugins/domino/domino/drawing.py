@@ -5,7 +5,7 @@ from typing import Any, Optional, Sequence
 
 import numpy as np
 
-from frostline.plot import frame
+from frostline.toolkit.drawing import frame
 
 #: north, south, east, west: two warm tones for horizontal, two cool for vertical
 CLASS_TONES = ("#d9a441", "#8c4a2f", "#3f6e8c", "#9cc3c9")

@@ -5,7 +5,7 @@ from typing import Any, Optional, Sequence
 
 import numpy as np
 
-from frostline.plot import frame
+from frostline.toolkit.drawing import frame
 
 from .tiles import lozenge_polygons
 

@@ -17,7 +17,7 @@ from __future__ import annotations
 
 import numpy as np
 
-from frostline.analysis.curves import conic_points
+from frostline.toolkit.curves import conic_points
 
 
 def free_fermion_curve(n: int, a: float, b: float, c: float, m: int = 720) -> np.ndarray:

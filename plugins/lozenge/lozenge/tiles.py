@@ -134,22 +134,3 @@ def lozenge_dimer_system(triangles: np.ndarray) -> dict:
     matrix[rows, cols] = 1.0
     return {"matrix": matrix, "rows": np.array(rows, dtype=np.int64), "cols": np.array(cols, dtype=np.int64),
             "tiles": np.array(tiles, dtype=np.int64).reshape(-1, 3)}
-
-
-class LozengeTiles:
-    """What every lozenge region declares about its tiles (a mixin for Region subclasses)."""
-
-    lattice = "lozenge"
-    tile_classes = TILE_CLASSES
-
-    def tile_centres(self, tiles: np.ndarray) -> np.ndarray:
-        return lozenge_centres(tiles)
-
-    def classify(self, tiles: np.ndarray) -> np.ndarray:
-        return np.asarray(tiles)[:, 2].astype(np.int8)
-
-    def draw(self, sample, ax=None, **style):
-        """Draw the tiling (three tones, cube tops palest)."""
-        from .drawing import draw_lozenges
-
-        return draw_lozenges(sample.tiles, ax=ax, **style)

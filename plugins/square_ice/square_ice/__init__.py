@@ -10,14 +10,9 @@ Conventions (heights, matrix, arrows, the vertex types a1 .. c2): :mod:`frostlin
 from . import conversions
 from .conversions import VERTEX_TYPES
 from .counts import asm_count, izergin_korepin, row_transfer
+from .declaration import LATTICE
+from .records import region_from_record
 from .region import SquareIceRegion, domain_wall, from_boundary, weight_table
 
-
-def region_from_record(record: dict, arrays: dict):
-    """Rebuild a region from the record and arrays of a sample file (see frostline.io)."""
-    description = {k: v for k, v in record.items() if k not in ("lattice", "n", "a", "b", "c")}
-    return SquareIceRegion(arrays["boundary"], record["a"], record["b"], record["c"], description=description)
-
-
-__all__ = ["SquareIceRegion", "VERTEX_TYPES", "asm_count", "conversions", "domain_wall", "from_boundary",
+__all__ = ["LATTICE", "SquareIceRegion", "VERTEX_TYPES", "asm_count", "conversions", "domain_wall", "from_boundary",
            "izergin_korepin", "region_from_record", "row_transfer", "weight_table"]

@@ -28,13 +28,13 @@ from frostline import _core
 from frostline._limits import check_memory
 from frostline._validate import integer
 from frostline.checker import check_monotone
-from frostline.model import HeightModel, ProgressHook
-from frostline.region import Region, Sample, StartLike
+from frostline.methods import ChainKernel, ExactMethod, RunOptions
+from frostline.model import HeightModel
+from frostline.region import Region, Sample
 
 from . import conversions as cv
 from .counts import asm_count, izergin_korepin, row_transfer
 
-METHODS = ("auto", "cftp", "generic")
 #: the cells around a corner, in context order NW, NE, SW, SE, and which weight their zero type has
 CELL_WEIGHT = ("a", "b", "b", "a")
 
@@ -200,51 +200,41 @@ class SquareIceRegion(Region):
             self._monotone = check_monotone(self, window=1)
         return self._monotone
 
-    def _check_method(self, method: str) -> str:
-        if method not in METHODS:
-            raise ValueError(f"method must be one of {METHODS}, got {method!r}")
-        return "cftp" if method == "auto" else method
-
-    def _run_exact(self, key, method, check_order, max_start_time, progress: ProgressHook):
-        method = self._check_method(method)
+    def exactness_check(self) -> None:
+        """Coupling from the past is exact only for a monotone heat bath (c >= max(a, b))."""
         report = self.monotonicity()
         if not report.monotone:
             raise ValueError(
                 f"exact sampling needs a monotone heat bath, and the weights (a, b, c) = ({self.a:g}, {self.b:g}, "
                 f"{self.c:g}) give a non-monotone one (the checker found: {report.detail}). Coupling from the past "
                 "would not be exact here; use chain() and its diagnostics, or choose c >= max(a, b)")
-        if method == "generic":
-            heights, report_ = self._model.sample(1.0, key, check_order=check_order, max_start_time=max_start_time,
-                                                  progress=progress, rule=self._rule)
-            return self._grid(heights), report_, "generic"
-        heights, report_ = _core.square_ice.ice_sample(self.n, self._table, self._least.ravel(),
-                                                        self._greatest.ravel(), key[0], key[1], check_order,
-                                                        max_start_time, progress)
-        return np.asarray(heights, dtype=np.int32).reshape(self._least.shape), report_, "corner grid"
 
-    def _make_chain(self, key, start: StartLike, method: str) -> Tuple[Any, Callable]:
-        method = self._check_method(method)
-        if isinstance(start, str):
-            if start not in ("min", "max"):
-                raise ValueError(f"start must be 'min', 'max' or a height array, got {start!r}")
-            grid = self._least if start == "min" else self._greatest
-        else:
-            grid = np.asarray(start)
-            if grid.shape != self._least.shape or not np.issubdtype(grid.dtype, np.integer):
-                raise ValueError(f"start heights must be an integer array of shape {self._least.shape}")
-            if not np.array_equal(grid[[0, -1], :], self.boundary[[0, -1], :]) or \
-                    not np.array_equal(grid[:, [0, -1]], self.boundary[:, [0, -1]]):
-                raise ValueError("start heights must keep the region's boundary")
-            if not (np.all(np.abs(np.diff(grid, axis=0)) == 1) and np.all(np.abs(np.diff(grid, axis=1)) == 1)):
-                raise ValueError("start heights must differ by exactly 1 between neighbouring corners")
+    def exact_methods(self) -> Dict[str, ExactMethod]:
+        """``"cftp"``: the corner-grid kernel; ``"generic"``: the reference engine (same sample)."""
+        return {"cftp": ExactMethod("cftp", "corner grid", self._ice_sample), "generic": self.generic_method()}
+
+    def chain_kernels(self) -> Dict[str, ChainKernel]:
+        return {"cftp": ChainKernel("corner grid", self._ice_chain), "generic": self.generic_chain_kernel()}
+
+    def _ice_sample(self, key, options: RunOptions):
+        heights, report = _core.square_ice.ice_sample(self.n, self._table, self._least.ravel(),
+                                                      self._greatest.ravel(), key[0], key[1], options.check_order,
+                                                      options.max_start_time, options.progress)
+        return np.asarray(heights, dtype=np.int32).reshape(self._least.shape), report
+
+    def _ice_chain(self, key, heights: np.ndarray):
         shape = self._least.shape
-        if method == "generic":
-            nodes = np.empty(self._model.n_nodes, dtype=np.int64)
-            nodes[self._node] = np.asarray(grid).ravel()
-            return self._model.chain(1.0, key, nodes, rule=self._rule), self._grid
-        compiled = _core.square_ice.ice_chain(self.n, self._table,
-                                              np.ascontiguousarray(grid, np.int32).ravel(), key[0], key[1])
+        compiled = _core.square_ice.ice_chain(self.n, self._table, np.ascontiguousarray(heights, np.int32).ravel(),
+                                              key[0], key[1])
         return compiled, lambda h: np.asarray(h, dtype=np.int32).reshape(shape)
+
+    def extreme_heights(self) -> Tuple[np.ndarray, np.ndarray]:
+        return self._least, self._greatest
+
+    def nodes_from_heights(self, heights: np.ndarray) -> np.ndarray:
+        nodes = np.empty(self._model.n_nodes, dtype=np.int64)
+        nodes[self._node] = np.asarray(heights).ravel()
+        return nodes
 
     # ----- views -------------------------------------------------------------------------
     def tiles_from_heights(self, heights: np.ndarray) -> np.ndarray:

@@ -14,29 +14,21 @@ hexagon_minus(a, b, c, removed) a hexagon with triangles removed
 trapezoid(bottom, height, notches) a trapezoid with notches in its top row
 
 Conventions for heights and tiles: :mod:`frostline.lozenge.tiles`,
-:mod:`frostline.lozenge.general` and DESIGN.md.
+:mod:`frostline.lozenge.general` and docs/design.md section 3.
 """
 from .boundary import DIRECTIONS, format_path, parse_path
 from .counts import macmahon, volume_polynomial
+from .declaration import LATTICE
 from .general import LozengeRegion, from_masks, from_triangles
 from .hexagon import HexagonRegion, hexagon, is_plane_partition
+from .records import region_from_record
 from .shapes import from_boundary, hexagon_minus, hexagon_region, polygon, trapezoid
 from .tiles import TILE_CLASSES, lozenge_polygons, plane_points, tiles_of_plane_partition
-
-
-def region_from_record(record: dict, arrays: dict):
-    """Rebuild a region from the record and arrays of a sample file (see frostline.io)."""
-    q = record.get("q", 1.0)
-    if record.get("shape") == "box":
-        return hexagon(*record["sides"], q=q)
-    if "triangles" not in arrays:
-        raise ValueError("the sample file lacks the region's triangles")
-    description = {k: v for k, v in record.items() if k not in ("lattice", "q")}
-    return LozengeRegion(arrays["triangles"], q, description=description)
 
 __all__ = [
     "DIRECTIONS",
     "HexagonRegion",
+    "LATTICE",
     "LozengeRegion",
     "TILE_CLASSES",
     "format_path",

@@ -11,21 +11,15 @@ Conventions (heights on cell corners, tiles as cell pairs, the four classes):
 :mod:`frostline.domino.region` and :mod:`frostline.domino.geometry`.
 """
 from .counts import aztec_count, kasteleyn_matrix, rectangle_count
+from .declaration import LATTICE
+from .records import region_from_record
 from .region import TILE_CLASSES, DominoRegion
 from .shapes import aztec_diamond, aztec_mask, from_mask, from_picture, rectangle
 from .weights import biased, two_periodic
 
-
-def region_from_record(record: dict, arrays: dict):
-    """Rebuild a region from the record and arrays of a sample file (see frostline.io)."""
-    description = {k: v for k, v in record.items() if k not in ("lattice", "weighted")}
-    offset = (description["order"] - 1) % 2 if description.get("shape") == "aztec diamond" else 0
-    return DominoRegion(arrays["mask"], arrays.get("horizontal"), arrays.get("vertical"), class_offset=offset,
-                        description=description, known_tileable=description.get("shape") in ("aztec diamond", "rectangle"))
-
-
 __all__ = [
     "DominoRegion",
+    "LATTICE",
     "TILE_CLASSES",
     "aztec_count",
     "aztec_diamond",

@@ -49,7 +49,7 @@ class TriangleGrid:
     origin: Tuple[int, int]
 
     @classmethod
-    def from_triangles(cls, triangles: np.ndarray) -> "TriangleGrid":
+    def from_triangles(cls, triangles: np.ndarray) -> TriangleGrid:
         t = np.asarray(triangles, dtype=np.int64).reshape(-1, 3)
         lo = t[:, :2].min(axis=0) - MARGIN
         hi = t[:, :2].max(axis=0) + MARGIN + 1

@@ -16,21 +16,21 @@ corner where it freezes (north at the top, and so on).
 from __future__ import annotations
 
 import numbers
-from typing import Any, Callable, Dict, Optional, Tuple
+from typing import Any, Dict, Optional, Tuple
 
 import numpy as np
 
 from frostline import _core
 from frostline._limits import check_memory
 from frostline.height_walk import integrate, refuse_holes, walk_boundary
-from frostline.model import HeightModel, ProgressHook
-from frostline.region import Region, Sample, StartLike
+from frostline.methods import ChainKernel, ExactMethod, RunOptions
+from frostline.model import HeightModel
+from frostline.region import Region, Sample
 
 from .geometry import SquareGeometry
 from .weights import Weights, check_weights, flip_thresholds
 
 TILE_CLASSES = ("north", "south", "east", "west")
-METHODS = ("auto", "cftp", "generic", "shuffling")
 
 
 def as_mask(mask: Any) -> np.ndarray:
@@ -230,82 +230,59 @@ class DominoRegion(Region):
         even = (t[:, 0, 0] + t[:, 0, 1] + self.class_offset) % 2 == 0
         return np.where(horizontal, np.where(even, 0, 1), np.where(even, 3, 2)).astype(np.int8)
 
-    # ----- Region interface --------------------------------------------------------
-    def _check_method(self, method: str) -> str:
-        if method not in METHODS:
-            raise ValueError(f"method must be one of {METHODS}, got {method!r}")
-        if method == "shuffling" and not self.is_aztec_diamond:
-            raise ValueError("domino shuffling samples Aztec diamonds only; use method='cftp' for this region")
-        if method == "auto":
-            return "shuffling" if self.is_aztec_diamond and self._shuffling_available() else "cftp"
-        return method
-
+    # ----- kernels -----------------------------------------------------------------
     @property
     def is_aztec_diamond(self) -> bool:
         return self._description.get("shape") == "aztec diamond"
 
-    def _shuffling_available(self) -> bool:
-        return hasattr(_core.domino, "aztec_shuffle")
+    def exact_methods(self) -> Dict[str, ExactMethod]:
+        """``"cftp"``: the corner-grid kernel; ``"generic"``: the reference engine (same sample);
+        ``"shuffling"`` (Aztec diamonds): domino shuffling, with its own random stream."""
+        table = {"cftp": ExactMethod("cftp", "corner grid", self._corner_sample), "generic": self.generic_method()}
+        if self.is_aztec_diamond:
+            table["shuffling"] = ExactMethod("shuffling", "shuffling", self._shuffle)
+        return table
 
-    def _run_exact(self, key, method, check_order, max_start_time, progress: ProgressHook):
-        method = self._check_method(method)
-        if method == "shuffling":
-            return self._shuffle(key, progress)
+    def auto_method(self) -> str:
+        """Shuffling for Aztec diamonds (O(n^3), no coupling time), coupling from the past otherwise."""
+        return "shuffling" if self.is_aztec_diamond else "cftp"
+
+    def chain_kernels(self) -> Dict[str, ChainKernel]:
+        corner = ChainKernel("corner grid", self._corner_chain)
+        return {"cftp": corner, "generic": self.generic_chain_kernel()}
+
+    def _corner_sample(self, key, options: RunOptions):
         e = self._engine()
-        if method == "generic":
-            heights, report = e["model"].sample(1.0, key, check_order=check_order, max_start_time=max_start_time,
-                                                progress=progress, rule=e["rule"])
-            return self._grid(heights), report, "generic"
         heights, report = _core.domino.corner_sample(
             e["layout"], e["least"].ravel(), e["greatest"].ravel(), e["rule"], key[0], key[1],
-            check_order, max_start_time, progress)
-        return np.asarray(heights, dtype=np.int32).reshape(e["least"].shape), report, "corner grid"
+            options.check_order, options.max_start_time, options.progress)
+        return np.asarray(heights, dtype=np.int32).reshape(e["least"].shape), report
 
-    def _shuffle(self, key, progress):
+    def _corner_chain(self, key, heights: np.ndarray):
+        e = self._engine()
+        shape = e["least"].shape
+        compiled = _core.domino.corner_chain(e["layout"], np.ascontiguousarray(heights, np.int32).ravel(),
+                                             e["rule"], key[0], key[1])
+        return compiled, lambda h: np.asarray(h, dtype=np.int32).reshape(shape)
+
+    def _shuffle(self, key, options: RunOptions):
         import time
 
         n = self._description["order"]
         horizontal, vertical = self.weights if self.weights is not None else (None, None)
         started = time.perf_counter()
-        tiles = _core.domino.aztec_shuffle(n, horizontal, vertical, key[0], key[1], progress)
+        tiles = _core.domino.aztec_shuffle(n, horizontal, vertical, key[0], key[1], options.progress)
         seconds = time.perf_counter() - started
         heights = self.heights_from_tiles(np.asarray(tiles))
-        report = {"start_time": 0, "coalescence_time": 0, "site_updates": 0, "epochs": n, "seconds": seconds}
-        return heights, report, "shuffling"
+        # orders grown, and the 2 x 2 faces filled on the way (k^2 at order k)
+        return heights, {"orders": n, "faces_filled": n * (n + 1) * (2 * n + 1) // 6, "seconds": seconds}
 
-    def sample(self, seed=None, *, method: str = "auto", check_order: bool = False, max_start_time: int = 2**40,
-               progress: ProgressHook = None) -> Sample:
-        """One exact sample: ``method`` is "auto" (shuffling for Aztec diamonds, else CFTP),
-        "cftp" (fast corner-grid kernel), "generic" (reference engine; same sample as "cftp") or
-        "shuffling" (Aztec diamonds). See :meth:`frostline.Region.sample` for the other arguments.
-        """
-        out = super().sample(seed, method=method, check_order=check_order, max_start_time=max_start_time,
-                             progress=progress)
-        if out.info.kernel == "shuffling":
-            object.__setattr__(out, "info", _replace_method(out.info, "shuffling"))
-        return out
-
-    def _make_chain(self, key, start: StartLike, method: str) -> Tuple[Any, Callable]:
-        method = self._check_method(method if method != "auto" else "cftp")
+    def extreme_heights(self) -> Tuple[np.ndarray, np.ndarray]:
         e = self._engine()
-        if isinstance(start, str):
-            if start not in ("min", "max"):
-                raise ValueError(f"start must be 'min', 'max' or a corner height array, got {start!r}")
-            grid = e["least"] if start == "min" else e["greatest"]
-        else:
-            grid = np.asarray(start)
-            if grid.shape != e["least"].shape:
-                raise ValueError(f"start heights must have shape {e['least'].shape}, got {grid.shape}")
-            if not np.issubdtype(grid.dtype, np.integer):
-                raise TypeError(f"start heights must be integers, got dtype {grid.dtype}")
-            if not np.array_equal(self.heights_from_tiles(self.tiles_from_heights(grid)), np.where(self.corner_mask, grid, 0)):
-                raise ValueError("start is not a height function of this region")
-        reshape = e["least"].shape
-        if method == "generic":
-            return (e["model"].chain(1.0, key, self._nodes(grid), rule=e["rule"]), self._grid)
-        compiled = _core.domino.corner_chain(e["layout"], np.ascontiguousarray(grid, np.int32).ravel(),
-                                             e["rule"], key[0], key[1])
-        return compiled, lambda h: np.asarray(h, dtype=np.int32).reshape(reshape)
+        return e["least"], e["greatest"]
+
+    def nodes_from_heights(self, heights: np.ndarray) -> np.ndarray:
+        return self._nodes(heights)
 
     def heights_from_model(self, node_heights: np.ndarray) -> np.ndarray:
         return self._grid(node_heights)
@@ -318,7 +295,7 @@ class DominoRegion(Region):
             return 1
         horizontal, vertical = self.weights
         w = Fraction(1)
-        for (r1, c1), (r2, c2) in self.tiles_from_heights(heights).tolist():
+        for (r1, c1), (r2, _) in self.tiles_from_heights(heights).tolist():
             w *= Fraction(float(horizontal[r1, c1] if r1 == r2 else vertical[r1, c1]))
         return w
 
@@ -434,8 +411,3 @@ class DominoRegion(Region):
         shape = {k: v for k, v in self._description.items()}
         return f"DominoRegion({shape}, dominoes={self.n_dominoes}, weighted={self.weights is not None})"
 
-
-def _replace_method(info, method):
-    from dataclasses import replace
-
-    return replace(info, method=method)

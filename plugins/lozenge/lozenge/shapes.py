@@ -8,7 +8,7 @@ import numpy as np
 
 from .boundary import DIRECTIONS, enclosed_triangles, parse_path
 from .general import LozengeRegion, _as_triangles
-from .hexagon import QLike, _side
+from .parameters import QLike, side_length
 
 
 def from_boundary(path: str, q: QLike = 1.0, start: Tuple[int, int] = (0, 0)) -> LozengeRegion:
@@ -30,7 +30,7 @@ def hexagon_region(a: int, b: int, c: int, q: QLike = 1.0) -> LozengeRegion:
     Same tilings and weights as :func:`hexagon`, whose fast kernel works on the
     plane partition instead; use this one to compare with other general regions.
     """
-    a, b, c = _side(a, "a"), _side(b, "b"), _side(c, "c")
+    a, b, c = side_length(a, "a"), side_length(b, "b"), side_length(c, "c")
     if a * b + b * c + c * a == 0:
         raise ValueError(f"the {a}, {b}, {c} hexagon has no area; hexagon() handles such degenerate boxes")
     path = f"{a}e {b}ne {c}nw {a}w {b}sw {c}se"
@@ -54,7 +54,7 @@ def polygon(lengths: Sequence[int], directions: Optional[Sequence[str]] = None, 
     >>> fl.lozenge.polygon([1, 1, 1, 2, 2, 1, 3, 3], ["e", "ne", "nw", "ne", "nw", "w", "sw", "se"]).count()
     16
     """
-    lengths = [_side(v, f"length {k}") for k, v in enumerate(lengths)]
+    lengths = [side_length(v, f"length {k}") for k, v in enumerate(lengths)]
     if directions is None:
         if len(lengths) != 6:
             raise ValueError("give directions for a polygon with other than six sides")
@@ -74,7 +74,7 @@ def hexagon_minus(a: int, b: int, c: int, removed: Iterable, q: QLike = 1.0) -> 
     removals that cut a hole or leave an untileable region raise ValueError
     saying why.
     """
-    a, b, c = _side(a, "a"), _side(b, "b"), _side(c, "c")
+    a, b, c = side_length(a, "a"), side_length(b, "b"), side_length(c, "c")
     full = enclosed_triangles(parse_path(f"{a}e {b}ne {c}nw {a}w {b}sw {c}se"))
     gone = _as_triangles(removed)
     keys = {tuple(r) for r in full.tolist()}
@@ -97,8 +97,8 @@ def trapezoid(bottom: int, height: int, notches: Optional[Sequence[int]] = None,
     ``notches`` balances the region. The notch positions act as boundary data
     of the tiling. Default: spread evenly.
     """
-    n = _side(bottom, "bottom")
-    h = _side(height, "height")
+    n = side_length(bottom, "bottom")
+    h = side_length(height, "height")
     if n + h == 0 or h == 0:
         raise ValueError("a trapezoid needs a positive height and width")
     if notches is None:

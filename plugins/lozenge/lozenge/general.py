@@ -16,20 +16,19 @@ there in the projection: the cubes (x + z, y - 1 - z, z) of the stack.
 from __future__ import annotations
 
 import numbers
-from typing import Any, Callable, Dict, Iterable, Optional, Tuple
+from typing import Any, Dict, Iterable, Optional, Tuple
 
 import numpy as np
 
 from frostline._limits import check_memory
 from frostline.height_walk import integrate, walk_boundary
-from frostline.model import HeightModel, ProgressHook
-from frostline.region import Region, StartLike
+from frostline.model import HeightModel
+from frostline.region import Region
 
 from .geometry import EDGE_ENDS, PARTNER, TriangleGrid
-from .hexagon import QLike, _weight
-from .tiles import LozengeTiles, lozenge_dimer_system
-
-KERNELS = ("auto", "generic")
+from .parameters import QLike, weight
+from .tile_mixin import LozengeTiles
+from .tiles import lozenge_dimer_system
 
 
 class LozengeRegion(LozengeTiles, Region):
@@ -42,7 +41,7 @@ class LozengeRegion(LozengeTiles, Region):
     """
 
     def __init__(self, triangles: np.ndarray, q: QLike = 1.0, *, description: Optional[Dict[str, Any]] = None):
-        self.q, self._q_exact = _weight(q)
+        self.q, self._q_exact = weight(q)
         tri = _as_triangles(triangles)
         check_memory(400 * len(tri) + 10**6, f"a region of {len(tri)} triangles")
         self.triangles = tri
@@ -166,44 +165,11 @@ class LozengeRegion(LozengeTiles, Region):
                       np.concatenate(deltas)).reshape(g.up.shape)
         return np.where(self.vertex_mask, h[self._crop], 0).astype(np.int32)
 
-    # ----- Region interface ----------------------------------------------------
-    def _check_method(self, method: str) -> None:
-        if method not in KERNELS:
-            raise ValueError(f"method must be one of {KERNELS} for a general lozenge region, got {method!r}")
-
-    def _run_exact(self, key, method, check_order, max_start_time, progress: ProgressHook):
-        self._check_method(method)
-        heights, report = self._model.sample(self.q, key, check_order=check_order,
-                                             max_start_time=max_start_time, progress=progress)
-        return self._heights_from_nodes(heights), report, "generic"
-
-    def _make_chain(self, key, start: StartLike, method: str) -> Tuple[Any, Callable]:
-        self._check_method(method)
-        least, greatest = self._model.extremes()
-        if isinstance(start, str):
-            if start not in ("min", "max"):
-                raise ValueError(f"start must be 'min', 'max' or a height array, got {start!r}")
-            nodes = least if start == "min" else greatest
-        else:
-            h = np.asarray(start)
-            if not np.issubdtype(h.dtype, np.integer):
-                raise TypeError(f"start heights must be integers, got dtype {h.dtype}")
-            nodes = self._nodes_from_heights(h)
-            self.tiles_from_heights(h)  # validity below
-            if not self._is_valid(nodes):
-                raise ValueError("start is not a height function of this region (see the height rule in the docs)")
-        return self._model.chain(self.q, key, nodes), self._heights_from_nodes
-
-    def _is_valid(self, nodes: np.ndarray) -> bool:
-        least, greatest = self._model.extremes()
-        c = self._model.constraints
-        ok_bounds = np.array_equal(nodes[self._model.n_sites:], least[self._model.n_sites:])
-        ok_edges = np.all(nodes[c[:, 1]] - nodes[c[:, 0]] <= c[:, 2])
-        ok_residue = np.all((nodes[: self._model.n_sites] - self._model.residues) % 3 == 0)
-        return bool(ok_bounds and ok_edges and ok_residue)
-
     def heights_from_model(self, node_heights: np.ndarray) -> np.ndarray:
         return self._heights_from_nodes(node_heights)
+
+    def nodes_from_heights(self, heights: np.ndarray) -> np.ndarray:
+        return self._nodes_from_heights(heights)
 
     def configuration_weight(self, heights: np.ndarray):
         """q ** (cubes above the least height function), exactly."""

@@ -14,7 +14,7 @@ import math
 
 import numpy as np
 
-from frostline.analysis.curves import conic_points
+from frostline.toolkit.curves import conic_points
 
 
 def hexagon_ellipse(a: int, b: int, c: int, m: int = 720) -> np.ndarray:

@@ -1,40 +1,21 @@
 """The a x b x c hexagon: plane partitions in a box, uniform or weighted q^volume."""
 from __future__ import annotations
 
-import numbers
 from fractions import Fraction
-from typing import Any, Callable, Dict, Tuple, Union
+from typing import Any, Dict
 
 import numpy as np
 
 from frostline import _core
 from frostline._limits import check_memory
-from frostline._validate import integer
-from frostline.model import HeightModel, ProgressHook
-from frostline.region import Region, StartLike
+from frostline.methods import ChainKernel, ExactMethod, RunOptions
+from frostline.model import HeightModel
+from frostline.region import Region
 
 from . import counts
-from .tiles import LozengeTiles, hexagon_corners, tiles_of_plane_partition
-
-QLike = Union[float, int, Fraction]
-
-KERNELS = ("auto", "box", "generic")
-
-
-def _side(value: Any, name: str) -> int:
-    return integer(value, f"side {name}", 0, 2**30, " (a side of 0 is a valid degenerate hexagon)")
-
-
-def _weight(q: Any) -> Tuple[float, Fraction]:
-    if isinstance(q, bool) or not isinstance(q, (numbers.Real, Fraction)):
-        raise TypeError(f"q must be a real number, got {q!r} of type {type(q).__name__}")
-    try:
-        value = float(q)
-    except OverflowError:
-        raise ValueError("q must be a finite positive number, got one too large for a float") from None
-    if not np.isfinite(value) or value <= 0.0:
-        raise ValueError(f"q must be a finite positive number, got {q!r}")
-    return value, Fraction(q) if isinstance(q, (Fraction, numbers.Integral)) else Fraction(value)
+from .parameters import QLike, side_length, weight
+from .tile_mixin import LozengeTiles
+from .tiles import hexagon_corners, tiles_of_plane_partition
 
 
 class HexagonRegion(LozengeTiles, Region):
@@ -48,8 +29,8 @@ class HexagonRegion(LozengeTiles, Region):
     """
 
     def __init__(self, a: int, b: int, c: int, q: QLike = 1.0) -> None:
-        self.a, self.b, self.c = _side(a, "a"), _side(b, "b"), _side(c, "c")
-        self.q, self._q_exact = _weight(q)
+        self.a, self.b, self.c = side_length(a, "a"), side_length(b, "b"), side_length(c, "c")
+        self.q, self._q_exact = weight(q)
         cells = self.a * self.b
         tiles = self.a * self.b + self.b * self.c + self.c * self.a
         # two padded chains and the result (int32), tiles (3 x int64), q table
@@ -144,46 +125,29 @@ class HexagonRegion(LozengeTiles, Region):
     def _cells(self, node_heights: np.ndarray) -> np.ndarray:
         return np.asarray(node_heights[: self.a * self.b], dtype=np.int32).reshape(self.a, self.b)
 
-    # ----- Region interface ----------------------------------------------
-    def _kernel(self, method: str) -> str:
-        if method not in KERNELS:
-            raise ValueError(f"method must be one of {KERNELS}, got {method!r}")
-        return "box" if method == "auto" else method
+    def nodes_from_heights(self, heights: np.ndarray) -> np.ndarray:
+        return np.concatenate([np.asarray(heights, dtype=np.int64).ravel(), [self.c, 0]])
 
-    def _run_exact(self, key, method, check_order, max_start_time, progress: ProgressHook):
-        kernel = self._kernel(method)
-        if kernel == "box":
-            cells, report = _core.lozenge.box_sample(self.a, self.b, self.c, self.q, key[0], key[1],
-                                                     check_order, max_start_time, progress)
-            return np.asarray(cells, dtype=np.int32), report, "box"
-        heights, report = self.lower().sample(self.q, key, check_order=check_order,
-                                              max_start_time=max_start_time, progress=progress)
-        return self._cells(heights), report, "generic"
+    # ----- kernels -----------------------------------------------------------
+    def exact_methods(self) -> Dict[str, ExactMethod]:
+        """``"cftp"`` and ``"box"``: the plane-partition kernel; ``"generic"``: the reference engine."""
+        box = ExactMethod("cftp", "box", self._box_sample)
+        return {"cftp": box, "box": box, "generic": self.generic_method()}
 
-    def _start_cells(self, start: StartLike) -> np.ndarray:
-        if isinstance(start, str):
-            if start not in ("min", "max"):
-                raise ValueError(f"start must be 'min', 'max' or a plane partition array, got {start!r}")
-            return np.full((self.a, self.b), 0 if start == "min" else self.c, dtype=np.int32)
-        pp = np.asarray(start)
-        if pp.shape != (self.a, self.b):
-            raise ValueError(f"a start plane partition must have shape {(self.a, self.b)}, got {pp.shape}")
-        if not np.issubdtype(pp.dtype, np.integer):
-            raise TypeError(f"a start plane partition must hold integers, got dtype {pp.dtype}")
-        if not is_plane_partition(pp, self.c):
-            raise ValueError(f"start is not a plane partition in the {self.a}x{self.b}x{self.c} box: "
-                             "values must lie in [0, c] and not increase along rows or columns")
-        return pp.astype(np.int32)
+    def chain_kernels(self) -> Dict[str, ChainKernel]:
+        box = ChainKernel("box", self._box_chain)
+        return {"cftp": box, "box": box, "generic": self.generic_chain_kernel()}
 
-    def _make_chain(self, key, start, method) -> Tuple[Any, Callable]:
-        kernel = self._kernel(method)
-        cells = self._start_cells(start)
+    def _box_sample(self, key, options: RunOptions):
+        cells, report = _core.lozenge.box_sample(self.a, self.b, self.c, self.q, key[0], key[1],
+                                                 options.check_order, options.max_start_time, options.progress)
+        return np.asarray(cells, dtype=np.int32), report
+
+    def _box_chain(self, key, heights: np.ndarray):
         a, b = self.a, self.b
-        if kernel == "box":
-            compiled = _core.lozenge.box_chain(a, b, self.c, self.q, key[0], key[1], cells.ravel())
-            return compiled, lambda h: np.asarray(h).reshape(a + 2, b + 2)[1:-1, 1:-1].copy()
-        nodes = np.concatenate([cells.ravel(), [self.c, 0]])
-        return self.lower().chain(self.q, key, nodes), self._cells
+        compiled = _core.lozenge.box_chain(a, b, self.c, self.q, key[0], key[1],
+                                           np.ascontiguousarray(heights, dtype=np.int32).ravel())
+        return compiled, lambda h: np.asarray(h).reshape(a + 2, b + 2)[1:-1, 1:-1].copy()
 
     def tiles_from_heights(self, heights: np.ndarray) -> np.ndarray:
         """Lozenges (k, 3) of the tiling whose plane partition is ``heights``."""

@@ -1,0 +1,24 @@
+"""What every lozenge region declares about its tiles: a mixin for Region subclasses."""
+from __future__ import annotations
+
+import numpy as np
+
+from .drawing import draw_lozenges
+from .tiles import TILE_CLASSES, lozenge_centres
+
+
+class LozengeTiles:
+    """What every lozenge region declares about its tiles (a mixin for Region subclasses)."""
+
+    lattice = "lozenge"
+    tile_classes = TILE_CLASSES
+
+    def tile_centres(self, tiles: np.ndarray) -> np.ndarray:
+        return lozenge_centres(tiles)
+
+    def classify(self, tiles: np.ndarray) -> np.ndarray:
+        return np.asarray(tiles)[:, 2].astype(np.int8)
+
+    def draw(self, sample, ax=None, **style):
+        """Draw the tiling (three tones, cube tops palest)."""
+        return draw_lozenges(sample.tiles, ax=ax, **style)
