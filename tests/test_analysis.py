@@ -16,7 +16,7 @@ def hexagon_corners(a, b, c):
 
 @pytest.mark.parametrize("sides", [(1, 1, 1), (5, 3, 4), (2, 7, 3), (6, 6, 2)])
 def test_hexagon_ellipse_is_tangent_to_every_side_where_predicted(sides):
-    # Cohn, Larsen, Propp 1998; touching points from REFERENCES.md section 2: an a-side is touched
+    # Cohn, Larsen, Propp 1998; touching points from docs/references.md section 2: an a-side is touched
     # at distance ac/(b+c) from its end that meets a c-side (cyclically for b- and c-sides).
     a, b, c = sides
     curve = fl.lozenge.hexagon(a, b, c).arctic_curve(m=40000)
@@ -35,7 +35,7 @@ def test_hexagon_ellipse_is_tangent_to_every_side_where_predicted(sides):
 
 
 def test_regular_hexagon_ellipse_is_the_inscribed_circle():
-    # a = b = c = 1: (X - 1/2)^2 + (Y - sqrt3/2)^2 = 3/4 (REFERENCES.md section 2)
+    # a = b = c = 1: (X - 1/2)^2 + (Y - sqrt3/2)^2 = 3/4 (docs/references.md section 2)
     c = fl.lozenge.hexagon(1, 1, 1).arctic_curve()
     assert np.allclose(np.hypot(c[:, 0] - 0.5, c[:, 1] - math.sqrt(3) / 2), math.sqrt(0.75))
 
@@ -59,7 +59,7 @@ def test_square_ice_curves_touch_each_side_once(weights):
 
 
 def test_asm_curve_crosses_the_diagonal_where_derived():
-    # REFERENCES.md section 2 [derived by the tangent method]: the NW arc crosses the corner's
+    # docs/references.md section 2 [derived by the tangent method]: the NW arc crosses the corner's
     # diagonal at distance 1 - sqrt(3)/2 from each side.
     curve = fl.square_ice.domain_wall(1).arctic_curve(m=80000)
     nw = curve[(curve[:, 0] < 0.5) & (curve[:, 1] > 0.5)]
@@ -92,13 +92,13 @@ def test_empirical_boundaries_converge_to_theory(make, bound):
 
 
 def test_free_fermion_ice_boundary_is_the_biased_aztec_ellipse():
-    # REFERENCES.md section 2: at c^2 = a^2 + b^2 the curve is an ellipse; compare at a != b
+    # docs/references.md section 2: at c^2 = a^2 + b^2 the curve is an ellipse; compare at a != b
     d = [distance(fl.square_ice.domain_wall(n, 1, 2, math.sqrt(5))) for n in (24, 72)]
     assert d[1] < d[0] and d[1] < 0.4
 
 
 def test_uniform_asm_boundary_against_the_derived_curve():
-    # The explicit Delta = 1/2 curve in REFERENCES.md is derived by the tangent method, not quoted:
+    # The explicit Delta = 1/2 curve in docs/references.md is derived by the tangent method, not quoted:
     # samples test it. At n = 90 the distance is of the size seen for the lozenge ellipse.
     assert distance(fl.square_ice.domain_wall(90)) < 0.3
 
@@ -116,14 +116,14 @@ def test_centre_densities_from_samples(make, centre, value):
 
 
 def n_statistic(pp):
-    """N = #{k = 1..n : pi[k-1, k-1] >= k} (REFERENCES.md section 4, plane-partition convention)."""
+    """N = #{k = 1..n : pi[k-1, k-1] >= k} (docs/references.md section 4, plane-partition convention)."""
     n = pp.shape[0]
     return sum(int(pp[k - 1, k - 1] >= k) for k in range(1, n + 1))
 
 
 @pytest.mark.parametrize("n, exact", [(4, 0.156463), (8, 0.209736), (16, 0.257359)])
 def test_height_fluctuation_statistic_matches_the_exact_table(n, exact):
-    # REFERENCES.md section 4 [checked with an exact kernel computation]. 3000 samples; the
+    # docs/references.md section 4 [checked with an exact kernel computation]. 3000 samples; the
     # sample variance has standard error about var * sqrt(2 / K) (normal approximation; N is
     # nearly normal here); tolerance 4 standard errors.
     samples = fl.lozenge.hexagon(n, n, n).samples(3000, seed=n)
@@ -134,7 +134,7 @@ def test_height_fluctuation_statistic_matches_the_exact_table(n, exact):
 
 def test_centre_variance_grows_like_log_n():
     # Kenyon (2001, 2008): height fluctuations are logarithmic. The centre statistic N of
-    # REFERENCES.md section 4 (exact table: 0.156463, 0.209736, 0.257359 at n = 4, 8, 16) gains a
+    # docs/references.md section 4 (exact table: 0.156463, 0.209736, 0.257359 at n = 4, 8, 16) gains a
     # nearly constant amount per doubling, 0.0533 then 0.0476; a power law n^p would multiply it
     # instead. Fit Var N = A + B ln n on 2500 samples per size: B must be within 35% of the
     # table's slope 0.0728 (standard error of B here is about 0.007, so this is a 3.5-sigma band).

@@ -117,7 +117,7 @@ def test_random_weights_on_an_irregular_region():
 
 
 def test_biased_partition_function_closed_form():
-    # (1 + a^2)^(n(n+1)/2) with every vertical domino weighted a (REFERENCES.md section 1, checked n <= 5)
+    # (1 + a^2)^(n(n+1)/2) with every vertical domino weighted a (docs/references.md section 1, checked n <= 5)
     from fractions import Fraction
 
     for n in (1, 2, 3, 4):

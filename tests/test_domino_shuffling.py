@@ -49,7 +49,7 @@ def biased(n, a):
 WEIGHTS = {
     "uniform": lambda n: (None, None),
     "biased": lambda n: biased(n, 2.0),
-    # a = 1, b = 0.5 as stated in REFERENCES.md section 2 (Chhita, Johansson 2016; coordinate form from memory)
+    # a = 1, b = 0.5 as stated in docs/references.md section 2 (Chhita, Johansson 2016; coordinate form from memory)
     "two_periodic": lambda n: two_periodic_weights(n, 1.0, 0.5),
     "random": lambda n: random_weights(n, seed=100 + n),
 }
@@ -136,7 +136,7 @@ def test_partition_function_uniform(n):
 @pytest.mark.parametrize("a", [2.0, 0.3, 1.75])
 @pytest.mark.parametrize("n", [1, 5, 9])
 def test_partition_function_biased(n, a):
-    # Vertical dominoes weighted a: (1 + a^2)^(n(n+1)/2) (REFERENCES.md section 1, checked there for n <= 5);
+    # Vertical dominoes weighted a: (1 + a^2)^(n(n+1)/2) (docs/references.md section 1, checked there for n <= 5);
     # 0.3 is taken at its exact binary value on both sides.
     a_exact = Fraction(a)
     assert aztec_partition_function(n, *biased(n, a)) == (1 + a_exact ** 2) ** (n * (n + 1) // 2)

@@ -49,7 +49,7 @@ def test_enumeration_refuses_big_regions():
 
 
 def test_twenty_cube_count_three_ways():
-    # M(20,20,20) ~ 1.59e136 (REFERENCES.md section 1): MacMahon's formula, the Kasteleyn
+    # M(20,20,20) ~ 1.59e136 (docs/references.md section 1): MacMahon's formula, the Kasteleyn
     # determinant of the 1200 x 1200 triangle adjacency, and the q-analogue at q = 1
     # (the sum of the volume polynomial's coefficients).
     m = fl.lozenge.hexagon(20, 20, 20).count()
@@ -104,7 +104,7 @@ def test_centre_densities_regular_hexagon_and_aztec():
 
 
 def cep_north(x, y):
-    """Cohn-Elkies-Propp (Duke Math. J. 85, 1996), as stated in REFERENCES.md section 3 (formula from memory)."""
+    """Cohn-Elkies-Propp (Duke Math. J. 85, 1996), as stated in docs/references.md section 3 (formula from memory)."""
     return 0.5 + math.atan((2 * y - 1) / math.sqrt(1 - 2 * x * x - 2 * y * y)) / math.pi
 
 
@@ -113,12 +113,12 @@ def test_aztec_densities_against_cohn_elkies_propp():
     centres, p = fl.exact.class_densities(fl.domino.aztec_diamond(n))["north"]
     for x, y in [(0.25, 0.25), (-0.3, 0.2), (0.0, -0.3)]:
         near = np.hypot(centres[:, 0] / n - x, centres[:, 1] / n - y) < 2.5 / n
-        # averaged over a few cells; finite-n values oscillate by O(1/n) (REFERENCES.md section 3)
+        # averaged over a few cells; finite-n values oscillate by O(1/n) (docs/references.md section 3)
         assert p[near].mean() == pytest.approx(cep_north(x, y), abs=0.015)
 
 
 def test_aztec_reflection_symmetry():
-    # P_N(x, y) = P_S(-x, -y) (REFERENCES.md section 3)
+    # P_N(x, y) = P_S(-x, -y) (docs/references.md section 3)
     d = fl.exact.class_densities(fl.domino.aztec_diamond(10))
     north = {tuple(np.round(c, 6)): v for c, v in zip(*d["north"])}
     south = {tuple(np.round(-c, 6)): v for c, v in zip(*d["south"])}
@@ -196,7 +196,7 @@ def test_log_partition_functions():
     n, a = 20, 1.5
     assert fl.exact.log_partition_function(fl.domino.aztec_diamond(n, vertical_weight=a)) == pytest.approx(
         n * (n + 1) / 2 * math.log(1 + a * a), rel=1e-10)
-    # domino entropy per cell tends to G/pi = 0.2915609 (REFERENCES.md section 1); 40 x 40 is close
+    # domino entropy per cell tends to G/pi = 0.2915609 (docs/references.md section 1); 40 x 40 is close
     assert fl.exact.log_partition_function(fl.domino.rectangle(40, 40)) / 1600 == pytest.approx(0.2915609, abs=0.01)
 
 

@@ -10,7 +10,6 @@ import json
 from pathlib import Path
 
 import pytest
-
 from golden.cases import cases, digest
 
 PINNED = json.loads((Path(__file__).parent / "golden" / "digests.json").read_text())

@@ -33,7 +33,8 @@ def test_metadata_record(tmp_path):
     assert record["lattice"] == "lozenge" and record["weights"] == {"q": 0.9}
     assert record["seed"] == {"entropy": 5, "spawn_key": [2], "pool_size": 4}
     assert record["frostline_version"] == fl.__version__
-    assert record["diagnostics"]["start_time"] == S.info.start_time
+    assert record["diagnostics"]["method"] == "cftp"
+    assert record["diagnostics"]["report"]["start_time"] == S.info.start_time == S.info.report["start_time"]
 
 
 def test_bad_files(tmp_path):

@@ -18,7 +18,7 @@ def test_cube_counts_match_oeis(n):
 
 
 def test_large_count_leading_digits():
-    # REFERENCES.md section 1: M(20,20,20) ~ 1.5903582500804731054e136 (137 digits).
+    # docs/references.md section 1: M(20,20,20) ~ 1.5903582500804731054e136 (137 digits).
     m = fl.lozenge.hexagon(20, 20, 20).count()
     assert len(str(m)) == 137
     assert str(m).startswith("15903582500804731054")
@@ -41,7 +41,7 @@ def test_counts_match_product_formula_in_sympy():
 
 
 def test_volume_polynomial_2x2x2_published():
-    # REFERENCES.md section 1 [checked]: coefficients of q^0..q^8 for the 2x2x2 box.
+    # docs/references.md section 1 [checked]: coefficients of q^0..q^8 for the 2x2x2 box.
     assert fl.lozenge.hexagon(2, 2, 2).volume_polynomial() == [1, 1, 3, 3, 4, 3, 3, 1, 1]
 
 

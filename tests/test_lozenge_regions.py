@@ -67,7 +67,7 @@ def test_general_route_counts_hexagons_like_macmahon(sides):
 
 
 def test_large_count_is_fast_and_exact():
-    # 1,200 lozenges: the 20 x 20 x 20 hexagon's 137-digit count (REFERENCES.md section 1).
+    # 1,200 lozenges: the 20 x 20 x 20 hexagon's 137-digit count (docs/references.md section 1).
     R = fl.lozenge.hexagon_region(20, 20, 20)
     assert R.count() == fl.lozenge.hexagon(20, 20, 20).count()
 

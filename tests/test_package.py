@@ -4,6 +4,7 @@ import subprocess
 import sys
 from pathlib import Path
 
+import numpy as np
 import pytest
 
 import frostline as fl
@@ -53,3 +54,42 @@ def test_plot_draws_every_lozenge():
     ax = S.plot()
     (collection,) = ax.collections
     assert len(collection.get_paths()) == len(S.tiles) == 3 * 4 + 4 * 2 + 2 * 3
+
+
+def _pixel_colours(sample, points):
+    """RGB (0..1) of the rendered picture at plane points (data coordinates)."""
+    import matplotlib
+
+    matplotlib.use("Agg")
+    import matplotlib.pyplot as plt
+    from matplotlib.colors import to_rgb
+
+    fig, ax = plt.subplots(figsize=(4, 4), dpi=100)
+    sample.plot(ax=ax)
+    fig.canvas.draw()
+    image = np.asarray(fig.canvas.buffer_rgba())[:, :, :3] / 255.0
+    height = image.shape[0]
+    pixels = ax.transData.transform(points)
+    out = [image[int(round(height - y)), int(round(x))] for x, y in pixels]
+    plt.close(fig)
+    return np.array(out), to_rgb
+
+
+@pytest.mark.parametrize("make, tones_of", [
+    (lambda: fl.lozenge.hexagon(2, 3, 2).sample(seed=1), "lozenge"),
+    (lambda: fl.domino.aztec_diamond(3).sample(seed=2), "domino"),
+])
+def test_pictures_show_each_tile_in_its_class_colour(make, tones_of):
+    """The pixel at the centre of every tile has the colour of that tile's class (picture content, not size)."""
+    S = make()
+    R = S.region
+    if tones_of == "lozenge":
+        from frostline.lozenge.drawing import FACE_TONES as tones
+        centres = R.tile_centres(S.tiles)
+    else:
+        from frostline.domino.drawing import CLASS_TONES as tones
+        t = np.asarray(S.tiles, dtype=float)
+        centres = np.stack([t[:, :, 1].mean(axis=1) + 0.5, -(t[:, :, 0].mean(axis=1) + 0.5)], axis=1)
+    colours, to_rgb = _pixel_colours(S, centres)
+    expected = np.array([to_rgb(tones[k]) for k in R.classify(S.tiles)])
+    assert np.abs(colours - expected).max() < 0.02

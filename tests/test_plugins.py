@@ -17,32 +17,77 @@ def test_builtins_are_registered():
     assert fl.lattice("domino") is fl.domino
 
 
+class FakeDistribution:
+    def __init__(self, name):
+        self.metadata = {"Name": name}
+
+
 class FakeEntryPoint:
-    def __init__(self, name, value):
-        self.name, self.value = name, value
+    def __init__(self, name, value, dist="frostline"):
+        self.name, self.value, self.dist = name, value, FakeDistribution(dist)
 
 
-def fake_entry_points(monkeypatch, points):
-    monkeypatch.setattr(metadata, "entry_points", lambda group=None: [FakeEntryPoint(*p) for p in points])
+BUILTINS = [("lozenge", "frostline.lozenge"), ("domino", "frostline.domino"), ("square_ice", "frostline.square_ice")]
+
+
+@pytest.fixture
+def fake_entry_points(monkeypatch):
+    def install(points):
+        monkeypatch.setattr(metadata, "entry_points", lambda group=None: [FakeEntryPoint(*p) for p in points])
+        registry._loaded.clear()
+        registry._targets_cache.clear()
+
+    yield install
     registry._loaded.clear()
+    registry._targets_cache.clear()
 
 
-def test_outside_plugin_is_listed_and_loaded_lazily(monkeypatch):
-    fake_entry_points(monkeypatch, [("lozenge", "frostline.lozenge"), ("extra", "json")])
+def test_outside_plugin_is_listed_and_loaded_lazily(fake_entry_points):
+    fake_entry_points(BUILTINS + [("extra", "frostline.custom", "extra-dist")])
     assert "extra" in fl.lattices()
-    assert fl.lattice("extra").__name__ == "json"
+    with pytest.raises(ValueError, match="must define"):  # a module without a LATTICE declaration
+        fl.lattice("extra")
 
 
-def test_outside_plugin_may_not_shadow_a_builtin(monkeypatch):
-    fake_entry_points(monkeypatch, [("domino", "someone_elses.domino")])
-    with pytest.raises(ValueError, match="is built in"):
-        fl.lattices()
+def test_an_outside_plugin_with_a_builtin_name_is_skipped(fake_entry_points):
+    """A bad plugin breaks only itself: the built-in keeps working."""
+    fake_entry_points(BUILTINS + [("domino", "someone_elses.domino", "someone-else")])
+    with pytest.warns(fl.FrostlineWarning, match="is built in.*someone-else"):
+        names = fl.lattices()
+    assert "domino" in names
+    assert fl.lattice("domino").LATTICE.name == "domino"
 
 
-def test_a_name_registered_twice_is_an_error(monkeypatch):
-    fake_entry_points(monkeypatch, [("extra", "pkg_one"), ("extra", "pkg_two")])
-    with pytest.raises(ValueError, match="registered twice"):
-        fl.lattices()
+def test_one_name_from_two_outside_packages_loads_neither(fake_entry_points):
+    fake_entry_points(BUILTINS + [("extra", "pkg_one", "dist-one"), ("extra", "pkg_two", "dist-two")])
+    with pytest.warns(fl.FrostlineWarning, match="dist-one and dist-two"):
+        names = fl.lattices()
+    assert "extra" not in names and "lozenge" in names
+
+
+def test_every_lattice_declares_itself():
+    ids = {}
+    for spec in registry.specs():
+        assert isinstance(spec, fl.LatticeSpec) and spec.tile_classes and spec.shapes
+        assert spec.region_from_record is not None
+        for name, value in spec.streams.items():
+            assert value not in ids, f"stream {value} of {spec.name} is also {ids[value]}"
+            ids[value] = f"{spec.name}.{name}"
+    assert ids.get(3) == "domino.domino_shuffling"  # pinned: the shuffling samples depend on it
+
+
+def test_closed_forms_come_from_the_declarations():
+    assert fl.exact.formulas.macmahon(3, 3, 3) == 980  # OEIS A008793
+    assert fl.exact.formulas.aztec_count(3) == 64  # OEIS A006125
+    assert fl.exact.formulas.asm_count(5) == 429  # OEIS A005130
+    assert "izergin_korepin" in dir(fl.exact.formulas)
+    with pytest.raises(AttributeError, match="no closed form"):
+        fl.exact.formulas.nonexistent
+
+
+def test_lattice_spec_refuses_engine_streams():
+    with pytest.raises(ValueError, match="1 and 2 belong to the engine"):
+        fl.LatticeSpec(name="bad", summary="", streams={"mine": 2})
 
 
 # OEIS A000108: Catalan numbers

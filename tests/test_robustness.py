@@ -167,7 +167,7 @@ def test_izergin_korepin_in_the_ill_conditioned_regime():
     z = fl.square_ice.izergin_korepin(10, 1, 2, 3.0000001)
     exact = float(fl.square_ice.row_transfer(domain_wall_boundary(10), (1, 2, 3.0000001)))
     assert float(z) == pytest.approx(exact, rel=1e-9)
-    # free fermion a = b = 1/sqrt 2, c = 1: Z_n = 1 for every n (REFERENCES.md section 1)
+    # free fermion a = b = 1/sqrt 2, c = 1: Z_n = 1 for every n (docs/references.md section 1)
     assert float(fl.square_ice.izergin_korepin(40, 2 ** -0.5, 2 ** -0.5, 1.0)) == pytest.approx(1.0, rel=1e-12)
 
 

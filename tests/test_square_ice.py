@@ -40,14 +40,14 @@ def enumerated_z(n, a, b, c):
                                      (2.0, 0.7, 1.1)])
 @pytest.mark.parametrize("n", [1, 2, 3, 4, 5])
 def test_izergin_korepin_and_row_transfer_against_enumeration(n, weights):
-    # Izergin-Korepin (Korepin 1982, Izergin 1987), real and complex parametrisations (REFERENCES.md section 1)
+    # Izergin-Korepin (Korepin 1982, Izergin 1987), real and complex parametrisations (docs/references.md section 1)
     expected = enumerated_z(n, *weights)
     assert float(fl.square_ice.izergin_korepin(n, *weights)) == pytest.approx(expected, rel=1e-20 ** 0.5)
     assert float(fl.square_ice.row_transfer(cv.domain_wall_boundary(n), weights)) == pytest.approx(expected, rel=1e-12)
 
 
 def test_izergin_korepin_published_check_values():
-    # REFERENCES.md section 1: lambda = 1.3, eta = 0.35, a = sin(l + e), b = sin(l - e), c = sin 2e
+    # docs/references.md section 1: lambda = 1.3, eta = 0.35, a = sin(l + e), b = sin(l - e), c = sin 2e
     lam, eta = 1.3, 0.35
     a, b, c = math.sin(lam + eta), math.sin(lam - eta), math.sin(2 * eta)
     published = [0.644217687238, 0.68701183295, 0.994770418525, 1.85533654235, 4.36983609675]
@@ -56,7 +56,7 @@ def test_izergin_korepin_published_check_values():
 
 
 def test_izergin_korepin_free_fermion_is_one():
-    # a = b = 1/sqrt 2, c = 1: Z_n = 1 (REFERENCES.md section 1)
+    # a = b = 1/sqrt 2, c = 1: Z_n = 1 (docs/references.md section 1)
     for n in (6, 12, 20):
         assert float(fl.square_ice.izergin_korepin(n, 2 ** -0.5, 2 ** -0.5, 1.0)) == pytest.approx(1.0, rel=1e-12)
 
@@ -109,14 +109,14 @@ def test_conversions_round_trip(n, seed):
     assert np.array_equal(types, S.vertex_types)
     back = cv.arrows_from_vertex_types(types)
     assert np.array_equal(back[0], horizontal) and np.array_equal(back[1], vertical)
-    # c1 at +1 entries, c2 at -1 entries; a/b at zeros as in REFERENCES.md section 1
+    # c1 at +1 entries, c2 at -1 entries; a/b at zeros as in docs/references.md section 1
     assert np.array_equal(S.vertex_types == 4, S.matrix == 1) and np.array_equal(S.vertex_types == 5, S.matrix == -1)
     na, nb, nc = vertex_counts(S.matrix)
     assert (np.isin(S.vertex_types, (0, 1)).sum(), np.isin(S.vertex_types, (2, 3)).sum()) == (na, nb)
 
 
 def test_domain_wall_arrows():
-    # horizontal arrows point in, vertical ones out (DESIGN.md convention drawn in the docs)
+    # horizontal arrows point in, vertical ones out (docs/design.md convention drawn in the docs)
     horizontal, vertical = fl.square_ice.domain_wall(5).sample(seed=0).arrows
     assert np.all(horizontal[:, 0] == 1) and np.all(horizontal[:, -1] == -1)
     assert np.all(vertical[0, :] == 1) and np.all(vertical[-1, :] == -1)
@@ -137,7 +137,7 @@ def test_checker_accepts_monotone_rules(make):
 
 @pytest.mark.parametrize("weights", [(1, 2, 1.9), (2, 1, 1.9), (1, 1, 0.9), (3, 1, 1)])
 def test_checker_refutes_six_vertex_rules_with_c_below_max_a_b(weights):
-    # REFERENCES.md section 5 predicts monotone exactly when c >= max(a, b); the checker agrees
+    # docs/references.md section 5 predicts monotone exactly when c >= max(a, b); the checker agrees
     R = fl.square_ice.domain_wall(5, *weights)
     report = fl.check_monotone(R)
     assert not report.monotone and "lowers the drawn height" in report.detail

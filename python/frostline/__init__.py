@@ -15,31 +15,51 @@ Lattice modules (``fl.lozenge`` ...) and ``fl.plot`` load on first use, so
 """
 from __future__ import annotations
 
-from typing import Any
+from typing import Any, List
+
+try:
+    from . import _core  # noqa: F401 - the compiled engine; everything below needs it
+except ImportError as _error:  # pragma: no cover - depends on the installation
+    raise ImportError(
+        "frostline's compiled engine (frostline._core) could not be imported, so frostline is not usable. "
+        "It is built when frostline is installed: reinstall with 'pip install --force-reinstall frostline', or "
+        "from a source checkout 'pip install .' (a C++17 compiler is needed). Running Python inside the "
+        f"source tree without installing does not work. The import failed with: {_error}"
+    ) from _error
 
 from . import custom
 from ._version import __version__
-from .checker import ModelReport, MonotonicityReport, check_model, check_monotone
+from .chain import Chain
 from .diagnostics import ChainDiagnostics, equilibrium_diagnostics
 from .errors import FrostlineWarning, RegionTooLargeError
 from .io import load, save
+from .lattice_spec import Argument, LatticeSpec, Shape
+from .methods import ChainKernel, ExactMethod, RunOptions
 from .model import HeightModel
-from .region import Chain, Region, Sample, SampleInfo
+from .region import Region
 from .registry import lattice, lattices
+from .sample import Sample, SampleInfo
 from .seeding import SeedRecord
+from .toolkit.checker import ModelReport, MonotonicityReport, check_model, check_monotone
 
 __all__ = [
+    "Argument",
     "Chain",
+    "ChainKernel",
     "ChainDiagnostics",
     "FrostlineWarning",
+    "ExactMethod",
     "HeightModel",
+    "LatticeSpec",
     "ModelReport",
     "MonotonicityReport",
     "Region",
     "RegionTooLargeError",
+    "RunOptions",
     "Sample",
     "SampleInfo",
     "SeedRecord",
+    "Shape",
     "__version__",
     "check_model",
     "check_monotone",
@@ -70,6 +90,10 @@ def get_cmake_dir() -> str:
     from . import _core
 
     return str(Path(_core.__file__).parent / "share" / "cmake" / "frostline")
+
+
+def __dir__() -> List[str]:
+    return sorted(set(__all__) | {"analysis", "exact", "plot"} | set(lattices()))
 
 
 def __getattr__(name: str) -> Any:

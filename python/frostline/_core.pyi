@@ -29,8 +29,6 @@ class engine:
         @property
         def n_colour_classes(self) -> int: ...
 
-    ForwardChain = ForwardChain
-
     @staticmethod
     def extremes(model: engine.HeightModel) -> Tuple[IntArray, IntArray]: ...
     @staticmethod
@@ -48,6 +46,8 @@ class engine:
     @staticmethod
     def integrate_heights(values: npt.ArrayLike, known: npt.ArrayLike, tails: npt.ArrayLike, heads: npt.ArrayLike,
                           deltas: npt.ArrayLike) -> npt.NDArray[np.int64]: ...
+    @staticmethod
+    def all_configurations(model: engine.HeightModel, cap: int) -> IntArray: ...
     @staticmethod
     def heat_bath_draws(lo: int, hi: int, step: int, q: float, min_height: int, max_height: int,
                         bits: npt.NDArray[np.uint64]) -> IntArray: ...

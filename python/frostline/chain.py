@@ -1,16 +1,13 @@
 """Forward heat-bath Markov chains on a region (:meth:`Region.chain`)."""
 from __future__ import annotations
 
-from typing import TYPE_CHECKING, Any, Callable
+from typing import Any, Callable
 
 import numpy as np
 
 from ._validate import count as _check_count
 from .model import ProgressHook
 from .seeding import seed_record
-
-if TYPE_CHECKING:  # pragma: no cover
-    from .region import Region
 
 
 class Chain:
@@ -20,9 +17,12 @@ class Chain:
     same counter-based random numbers as the exact sampler uses, keyed by the
     chain's seed and the sweep's time index. ``run`` may be interrupted with
     Ctrl-C; the state stays consistent and ``time`` counts the sweeps done.
+
+    ``region`` is the :class:`frostline.Region` the chain runs on (typed Any
+    here so that this module does not import the one that imports it).
     """
 
-    def __init__(self, region: Region, compiled: Any, sequence: np.random.SeedSequence,
+    def __init__(self, region: Any, compiled: Any, sequence: np.random.SeedSequence,
                  to_heights: Callable[[np.ndarray], np.ndarray], kernel: str) -> None:
         self.region = region
         self.kernel = kernel

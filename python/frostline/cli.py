@@ -61,7 +61,7 @@ def _shape_table() -> Dict[str, Tuple[str, Any]]:
     return table
 
 
-def _add_shapes(parent: argparse.ArgumentParser, sampling: bool) -> None:
+def _add_shapes(parent: argparse.ArgumentParser, sampling: bool, picture_required: bool = False) -> None:
     shapes = parent.add_subparsers(dest="shape", metavar="SHAPE", required=True)
     for name, (_, shape) in _shape_table().items():
         p = shapes.add_parser(name, help=shape.help, description=shape.description or shape.help)
@@ -76,6 +76,8 @@ def _add_shapes(parent: argparse.ArgumentParser, sampling: bool) -> None:
                         required=argument.exclusive in shape.required)
                 target = groups[argument.exclusive]
             argument.add_to(target)
+        if picture_required:
+            p.add_argument("--picture", type=Path, required=True, help="the picture to write (.png, .svg or .pdf)")
         if sampling:
             p.add_argument("--seed", type=int, default=None,
                            help="non-negative int; the same seed gives the same sample (default: fresh, printed)")
@@ -104,9 +106,7 @@ def _parser() -> argparse.ArgumentParser:
     density = commands.add_parser("density", help="draw the exact density of each tile class of a region",
                                   description="Exact placement probabilities (inverse Kasteleyn matrix) drawn as one "
                                               "panel per tile class; lozenge regions with q = 1 and domino regions.")
-    _add_shapes(density, sampling=False)
-    for p in density._subparsers._group_actions[0].choices.values():  # every shape takes --picture here
-        p.add_argument("--picture", type=Path, required=True, help="the picture to write (.png, .svg or .pdf)")
+    _add_shapes(density, sampling=False, picture_required=True)
     compare = commands.add_parser(
         "compare", help="frozen boundaries of lozenges, dominoes and square ice against theory",
         description="For a regular hexagon, an Aztec diamond and domain-wall square ice at each size: one exact "

@@ -64,7 +64,7 @@ class ModelRegion(Region):
         """A two-point rule may not be monotone: check it (once) before claiming exactness."""
         if self.rule is None:
             return
-        from .checker import check_monotone
+        from .toolkit.checker import check_monotone
 
         if not hasattr(self, "_monotone"):
             self._monotone = check_monotone(self.model, q=self.q, rule=self.rule, max_sites=10**9)

@@ -7,12 +7,12 @@ These helpers never look at a lattice: they walk graphs.
 from __future__ import annotations
 
 from collections import deque
-from typing import Callable, Dict, List, Sequence, Tuple
+from typing import Any, Callable, Dict, List, Tuple
 
 import numpy as np
 
 
-def walk_boundary(tails: np.ndarray, heads: np.ndarray, rise: int, order: Sequence[int],
+def walk_boundary(tails: np.ndarray, heads: np.ndarray, rise: int, order: Any,
                   start_value: Callable[[int], int], name: Callable[[int], str]) -> Tuple[Dict[int, int], Dict[int, int]]:
     """Heights on boundary points, where every boundary edge rises by ``rise`` from tail to head.
 

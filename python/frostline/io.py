@@ -55,7 +55,7 @@ def save(sample: Sample, path: PathLike) -> Path:
     fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".tmp", dir=folder)
     try:
         with os.fdopen(fd, "wb") as handle:
-            np.savez_compressed(handle, metadata=np.array(record), **arrays)
+            np.savez_compressed(handle, metadata=np.array(record), **arrays)  # type: ignore[arg-type]
         os.replace(tmp, path)
     except BaseException:
         if os.path.exists(tmp):

@@ -1,4 +1,4 @@
-"""The generic height model (DESIGN.md section 1) as seen from Python.
+"""The generic height model (docs/design.md section 1) as seen from Python.
 
 Every plugin lowers its regions to a :class:`HeightModel`; the compiled engine
 samples it by monotone coupling from the past and runs forward heat-bath

@@ -3,15 +3,12 @@ from __future__ import annotations
 
 from dataclasses import dataclass, field
 from types import MappingProxyType
-from typing import TYPE_CHECKING, Any, Dict, Mapping
+from typing import Any, Dict, Mapping
 
 import numpy as np
 
 from ._version import __version__
 from .seeding import SeedRecord
-
-if TYPE_CHECKING:  # pragma: no cover
-    from .region import Region
 
 
 @dataclass(frozen=True)
@@ -79,7 +76,7 @@ class Sample:
     ``tiles`` is computed from the heights on first use.
     """
 
-    region: Region
+    region: Any  # the frostline.Region it came from (not imported: region.py imports this module)
     heights: np.ndarray
     info: SampleInfo
     _cache: Dict[str, Any] = field(default_factory=dict, repr=False)

@@ -2,7 +2,7 @@
 
 An ASM has entries in {-1, 0, 1}; along every row and column the nonzero
 entries alternate in sign, starting and ending with +1 (common practice;
-Mills, Robbins, Rumsey 1983). Vertex types follow REFERENCES.md section 1: an
+Mills, Robbins, Rumsey 1983). Vertex types follow docs/references.md section 1: an
 entry 0 is an "a" vertex when its row partial sum (from the left) equals its
 column partial sum (from the top), otherwise "b"; entries +-1 are "c".
 """

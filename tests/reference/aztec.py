@@ -1,6 +1,6 @@
 """Brute-force domino tilings of small masks, written independently of frostline.
 
-Conventions (frostline DESIGN.md section 3): cell (r, c) of a boolean mask,
+Conventions (frostline docs/design.md section 3): cell (r, c) of a boolean mask,
 row 0 at the top; a domino is the pair of cells ((r1, c1), (r2, c2)) with the
 first cell the top or left one. The Aztec diamond of order n is the 2n x 2n
 mask of cells whose centres (c - n + 1/2, n - r - 1/2) satisfy |x| + |y| <= n
@@ -93,7 +93,7 @@ def aztec_partition_function(n: int, horizontal: Optional[np.ndarray] = None,
 
 
 def two_periodic_weights(n: int, a: float, b: float) -> Tuple[np.ndarray, np.ndarray]:
-    """Two-periodic weights as stated in frostline's REFERENCES.md section 2.
+    """Two-periodic weights as stated in frostline's docs/references.md section 2.
 
     Corner (r, c) is the top-left corner of cell (r, c). The middle segment of
     a domino (the edge between its two cells) has two end corners, exactly one

@@ -1,7 +1,7 @@
 """Brute-force lozenge tilings of a set of unit triangles, written independently of frostline.
 
 A lozenge tiling is a perfect matching of up triangles with adjacent down
-triangles. With the conventions of DESIGN.md section 3, the up triangle
+triangles. With the conventions of docs/design.md section 3, the up triangle
 U(x, y) shares an edge with D(x, y) (lozenge type 0), D(x, y-1) (type 1) and
 D(x-1, y) (type 2) and with no other down triangle.
 """

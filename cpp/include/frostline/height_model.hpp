@@ -1,4 +1,4 @@
-// The generic height model (DESIGN.md section 1): integer heights on sites with
+// The generic height model (docs/design.md section 1): integer heights on sites with
 // fixed boundary nodes, difference constraints h[v] - h[u] <= c(u, v), a
 // residue rule h[v] = residue[v] (mod step), and colour classes of sites that
 // never constrain each other. It knows no lattice: every plugin lowers its

@@ -10,6 +10,12 @@ sample for the same seed.
     import frostline as fl
     R = fl.lattice("rsos").surface(4, 5, max_height=2)
     R.count(); R.sample(seed=0).heights
+
+From the command line, with no change to frostline::
+
+    frostline lattices
+    frostline sample rsos 4 5 2 --seed 1
+    frostline count rsos 3 3 2
 """
 from __future__ import annotations
 
@@ -17,7 +23,7 @@ from typing import Any, Dict
 
 import numpy as np
 
-from frostline import HeightModel, Region
+from frostline import Argument, ExactMethod, HeightModel, LatticeSpec, Region, RunOptions, Shape
 from frostline._limits import check_memory
 
 from . import _kernel
@@ -65,24 +71,18 @@ class SurfaceRegion(Region):
         r, c = np.divmod(np.arange(R * C), C)
         return HeightModel(R * C, np.array([0, self.max_height]), np.concatenate(rows), np.zeros(R * C), 1, (r + c) % 2)
 
-    def _run_exact(self, key, method, check_order, max_start_time, progress):
-        if method not in ("auto", "kernel", "generic"):
-            raise ValueError(f"method must be 'auto', 'kernel' or 'generic', got {method!r}")
-        if method == "generic":
-            h, report = self.model.sample(self.q, key, check_order=check_order, max_start_time=max_start_time,
-                                          progress=progress)
-            return self.heights_from_model(h), report, "generic"
-        h, report = _kernel.sample(self.rows, self.columns, self.max_height, self.q, key[0], key[1],
-                                   self._least.ravel(), self._greatest.ravel(), progress)
-        return np.asarray(h, np.int32).reshape(self.rows + 2, self.columns + 2)[1:-1, 1:-1].copy(), report, "rsos kernel"
+    # ----- kernels: this package's compiled kernel beside frostline's generic engine -----
+    def exact_methods(self) -> Dict[str, ExactMethod]:
+        kernel = ExactMethod("cftp", "rsos kernel", self._kernel_sample)
+        return {"cftp": kernel, "kernel": kernel, "generic": self.generic_method()}
 
-    def _make_chain(self, key, start, method):
-        if isinstance(start, str):
-            if start not in ("min", "max"):
-                raise ValueError("start must be 'min', 'max' or a height array")
-            start = np.zeros((self.rows, self.columns)) if start == "min" else self._greatest[1:-1, 1:-1]
-        nodes = np.concatenate([np.asarray(start).ravel(), [0, self.max_height]])
-        return self.model.chain(self.q, key, nodes), self.heights_from_model
+    def _kernel_sample(self, key, options: RunOptions):
+        h, report = _kernel.sample(self.rows, self.columns, self.max_height, self.q, key[0], key[1],
+                                   self._least.ravel(), self._greatest.ravel(), options.progress)
+        return np.asarray(h, np.int32).reshape(self.rows + 2, self.columns + 2)[1:-1, 1:-1].copy(), report
+
+    def nodes_from_heights(self, heights: np.ndarray) -> np.ndarray:
+        return np.concatenate([np.asarray(heights, np.int64).ravel(), [0, self.max_height]])
 
     def heights_from_model(self, node_heights: np.ndarray) -> np.ndarray:
         return np.asarray(node_heights[: self.rows * self.columns], np.int32).reshape(self.rows, self.columns)
@@ -124,3 +124,17 @@ def surface(rows: int, columns: int, max_height: int, q: float = 1.0) -> Surface
 
 def region_from_record(record: dict, arrays: dict) -> SurfaceRegion:
     return SurfaceRegion(record["rows"], record["columns"], record["max_height"], record.get("q", 1.0))
+
+
+LATTICE = LatticeSpec(
+    name="rsos",
+    summary="restricted solid-on-solid surfaces (an outside plugin)",
+    shapes=(Shape("rsos", "RSOS surfaces on a ROWS x COLUMNS grid with heights 0..MAX_HEIGHT", surface,
+                  (Argument("rows", "number of rows"), Argument("columns", "number of columns"),
+                   Argument("max_height", "the largest height"),
+                   Argument("q", "weight per unit of height (q ** volume); 1 is uniform", type=float, default=1.0,
+                            flag="--q"))),),
+    tile_classes=TILE_CLASSES,
+    weight_keys=("q",),
+    region_from_record=region_from_record,
+)

@@ -59,3 +59,24 @@ def test_bad_input():
         fl.lattice("rsos").surface(0, 3, 2)
     with pytest.raises(TypeError):
         fl.lattice("rsos").surface(2.5, 3, 2)
+
+
+def test_the_command_line_knows_it(capsys):
+    """One folder, one registration: the outside lattice's shapes reach the CLI with no change to frostline."""
+    from frostline.cli import main
+
+    assert main(["lattices"]) == 0
+    listing = capsys.readouterr().out
+    assert "rsos: restricted solid-on-solid" in listing and "shape rsos ROWS COLUMNS MAX_HEIGHT" in listing
+    assert main(["count", "rsos", "3", "3", "2"]) == 0
+    assert capsys.readouterr().out.strip() == str(transfer_count(3, 3, 2))
+    assert main(["sample", "rsos", "3", "4", "2", "--seed", "3"]) == 0
+    out = capsys.readouterr().out
+    assert "rsos kernel" in out and "start time" in out
+
+
+def test_saved_samples_load_back(tmp_path):
+    R = fl.lattice("rsos").surface(3, 4, 2, q=0.8)
+    S = R.sample(seed=4)
+    T = fl.load(fl.save(S, tmp_path / "s.npz"))
+    assert np.array_equal(S.heights, T.heights) and T.region.describe() == R.describe()

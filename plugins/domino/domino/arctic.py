@@ -4,7 +4,7 @@
   tilings and the arctic circle theorem", 1998).
 - Every vertical domino weighted a: the ellipse x^2 / A + y^2 / B = n^2 with
   A = 1 / (1 + a^2), B = a^2 / (1 + a^2), y the axis through the corners whose
-  frozen regions hold horizontal dominoes (REFERENCES.md section 2: form from
+  frozen regions hold horizontal dominoes (docs/references.md section 2: form from
   memory of Cohn, Elkies, Propp 1996, orientation checked with exact probabilities).
 """
 from __future__ import annotations

@@ -41,7 +41,7 @@ def rectangle_count(m: int, n: int) -> int:
 def kasteleyn_matrix(mask: np.ndarray, horizontal=None, vertical=None) -> np.ndarray:
     """Real Kasteleyn matrix: rows black cells, columns white cells (each row-major).
 
-    Weight -1 on vertical dominoes in odd columns, +1 elsewhere (REFERENCES.md
+    Weight -1 on vertical dominoes in odd columns, +1 elsewhere (docs/references.md
     section 3), times the domino weights when given (then a float array).
     """
     R, C = mask.shape
@@ -93,7 +93,7 @@ def weighted_partition_function(region) -> Any:
 
         n = region._description["order"]
         d = region._description
-        if "vertical_weight" in d:  # (1 + a^2)^(n(n+1)/2), exact (REFERENCES.md section 1)
+        if "vertical_weight" in d:  # (1 + a^2)^(n(n+1)/2), exact (docs/references.md section 1)
             return (1 + Fraction(d["vertical_weight"]) ** 2) ** (n * (n + 1) // 2)
         if n <= 16:  # exact rationals grow fast with n: beyond, the logarithm in floating point
             return aztec_partition_function(n, horizontal, vertical)

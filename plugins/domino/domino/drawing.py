@@ -37,5 +37,5 @@ def draw_dominoes(tiles: np.ndarray, classes: np.ndarray, ax: Any = None, *, ton
     if edge_width is None:
         edge_width = 0.2 if large else 0.6
     edges: Any = edge_colour or (colours if large else "#1f1a17")
-    ax.add_collection(PolyCollection(rects, facecolors=colours, edgecolors=edges, linewidths=edge_width))
+    ax.add_collection(PolyCollection(list(rects), facecolors=colours, edgecolors=edges, linewidths=edge_width))
     return frame(ax, rects, title)

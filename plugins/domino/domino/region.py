@@ -61,8 +61,8 @@ class DominoRegion(Region):
         self.weights: Optional[Weights] = check_weights(horizontal, vertical, (R, C))
         if isinstance(class_offset, bool) or not isinstance(class_offset, numbers.Integral):
             raise TypeError("class_offset must be an int")
-        self.class_offset = int(class_offset) % 2
-        self._description = description or {"shape": "mask"}
+        self.class_offset: int = int(class_offset) % 2
+        self._description: Dict[str, Any] = description or {"shape": "mask"}
         r, c = np.nonzero(self.mask)
         black = int(((r + c) % 2 == 0).sum())
         white = len(r) - black
@@ -71,7 +71,7 @@ class DominoRegion(Region):
         if black != white:
             raise ValueError(f"the region cannot be tiled: it has {black} black and {white} white cells "
                              "(cell (r, c) is black when r + c is even), and every domino covers one of each")
-        self.geometry = SquareGeometry(self.mask)
+        self.geometry: SquareGeometry = SquareGeometry(self.mask)
         self._engine_parts: Optional[Dict[str, Any]] = None
         self._build()
         if not known_tileable:

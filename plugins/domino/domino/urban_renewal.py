@@ -7,7 +7,7 @@ D = w1 w3 + w2 w4, and Z(G) = D Z(G'). Doing this at the n^2 faces of the
 order-n diamond that own all four of their edges leaves the diamond of order
 n - 1, so Z is a product of n^3/3 such factors: O(n^3) work.
 
-Conventions (DESIGN.md section 3): cell (r, c) of the 2n x 2n mask, row 0 at
+Conventions (docs/design.md section 3): cell (r, c) of the 2n x 2n mask, row 0 at
 the top; the Aztec diamond of order n holds the cells whose centres
 (c - n + 1/2, n - r - 1/2) satisfy |x| + |y| <= n, and every tiling has
 n(n + 1) dominoes. ``horizontal[r, c]`` (shape (2n, 2n - 1)) weighs the domino

@@ -48,7 +48,7 @@ def biased(shape: Tuple[int, int], a: float) -> Weights:
 
 
 def two_periodic(shape: Tuple[int, int], a: float, b: float) -> Weights:
-    """Two-periodic weights (REFERENCES.md section 2, stated in mask coordinates).
+    """Two-periodic weights (docs/references.md section 2, stated in mask coordinates).
 
     Each domino position borders exactly one cell corner (r, c) with r + c
     even (the corners at the ends of the edge the domino covers); the position

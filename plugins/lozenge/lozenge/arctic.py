@@ -3,7 +3,7 @@
 Cohn, Larsen, Propp, "The shape of a typical boxed plane partition", New York
 J. Math. 4 (1998). The explicit equation in frostline's plane coordinates
 (corners V0 = (0, 0), V1 = (a, 0), V2 = (a + b/2, sqrt(3) b / 2), ...) is the
-one in REFERENCES.md section 2 (derived there from the theorem and checked):
+one in docs/references.md section 2 (derived there from the theorem and checked):
 
   3(b+c)^2 X^2 + 2 sqrt3 (c-b)(2a+b+c) XY + (4a^2+4ab+4ac+b^2-2bc+c^2) Y^2
   - 6ac(b+c) X - 2 sqrt3 ac(2a+3b+c) Y + 3 a^2 c^2 = 0.

@@ -15,7 +15,7 @@ it may run either way round. The region is everything it encloses.
 from __future__ import annotations
 
 import re
-from typing import List, Sequence, Tuple
+from typing import Dict, List, Sequence, Tuple
 
 import numpy as np
 
@@ -51,7 +51,8 @@ def parse_path(text: str) -> List[Tuple[int, int]]:
         pos = m.end()
         if m.group(5):
             continue
-        tokens.append((m.start(m.lastindex), m.group(m.lastindex)))
+        last = m.lastindex or 0  # a match that is not a skipped blank has a last group
+        tokens.append((m.start(last), m.group(last)))
 
     def sequence(k: int, depth: int) -> Tuple[List[Tuple[int, int]], int]:
         steps: List[Tuple[int, int]] = []
@@ -110,7 +111,7 @@ def path_length(text: str) -> int:
 
 def format_path(steps: Sequence[Tuple[int, int]]) -> str:
     """The notation for a list of unit steps, runs merged (``[(1,0)]*3 -> '3e'``)."""
-    names = {v: k for k, v in DIRECTIONS.items()}
+    names: Dict[Tuple[int, ...], str] = {tuple(v): k for k, v in DIRECTIONS.items()}
     out = []
     k = 0
     while k < len(steps):
@@ -130,7 +131,7 @@ def path_points(steps: Sequence[Tuple[int, int]], start: Tuple[int, int] = (0, 0
     if tuple(pts[-1]) != tuple(pts[0]):
         raise ValueError(f"the boundary path is open: it starts at {tuple(int(v) for v in pts[0])} and ends at "
                          f"{tuple(int(v) for v in pts[-1])}; a boundary must return to its start")
-    seen = {}
+    seen: Dict[Tuple[int, ...], int] = {}
     for k, p in enumerate(map(tuple, pts[:-1].tolist())):
         if p in seen:
             raise ValueError(f"the boundary path visits the lattice point {p} twice (after steps {seen[p]} and {k}); "

@@ -37,7 +37,7 @@ LATTICE = LatticeSpec(
     summary="lozenge tilings of the triangular lattice (plane partitions, stacks of cubes)",
     shapes=(
         Shape("hexagon", "the A, B, C hexagon (plane partitions in a box)",
-              lambda sides, q=1.0: hexagon(*sides, q=q),
+              lambda sides, q=1.0: hexagon(sides[0], sides[1], sides[2], q=q),
               (Argument("sides", "three side lengths A B C: plane partitions in an A x B x C box", nargs=3,
                         metavar="SIDE"), _Q),
               "Lozenge tilings of the A, B, C hexagon = plane partitions in an A x B x C box."),

@@ -38,5 +38,5 @@ def draw_lozenges(tiles: np.ndarray, ax: Any = None, *, tones: Sequence[str] = F
         edges: Any = colours if large else "#2b1d17"
     else:
         edges = edge_colour
-    ax.add_collection(PolyCollection(polygons, facecolors=colours, edgecolors=edges, linewidths=edge_width))
+    ax.add_collection(PolyCollection(list(polygons), facecolors=colours, edgecolors=edges, linewidths=edge_width))
     return frame(ax, polygons, title)

@@ -197,7 +197,8 @@ class LozengeRegion(LozengeTiles, Region):
         if self._description.get("shape") == "hexagon" and self.q == 1.0:
             from .arctic import hexagon_ellipse
 
-            return hexagon_ellipse(*self._description["sides"], m=m)
+            a, b, c = self._description["sides"]
+            return hexagon_ellipse(a, b, c, m=m)
         raise ValueError(f"no published arctic curve is built in for {self!r}")
 
     def heat_bath_rule(self):
@@ -293,7 +294,7 @@ def _as_triangles(triangles: Iterable) -> np.ndarray:
 
 
 def from_triangles(triangles: Iterable, q: QLike = 1.0) -> LozengeRegion:
-    """A region from its unit triangles: rows (x, y, s), s = 0 up, 1 down (DESIGN.md conventions).
+    """A region from its unit triangles: rows (x, y, s), s = 0 up, 1 down (docs/design.md conventions).
 
     The up triangle (x, y, 0) has corners (x, y), (x+1, y), (x, y+1); the down
     triangle (x, y, 1) has corners (x+1, y), (x, y+1), (x+1, y+1). Repeated

@@ -125,6 +125,16 @@ class HexagonRegion(LozengeTiles, Region):
     def _cells(self, node_heights: np.ndarray) -> np.ndarray:
         return np.asarray(node_heights[: self.a * self.b], dtype=np.int32).reshape(self.a, self.b)
 
+    def check_heights(self, heights: Any) -> np.ndarray:
+        """``heights`` if it is a plane partition in this box (shape (a, b), values in [0, c], non-increasing)."""
+        pp = super().check_heights(heights) if not _plane_partition_shaped(heights, self) else np.asarray(heights)
+        if not np.issubdtype(pp.dtype, np.integer):
+            raise TypeError(f"a plane partition must hold integers, got dtype {pp.dtype}")
+        if not is_plane_partition(pp, self.c):
+            raise ValueError(f"the heights are not a plane partition in the {self.a}x{self.b}x{self.c} box: values "
+                             "must lie in [0, c] and not increase along rows or columns")
+        return pp.astype(np.int32)
+
     def nodes_from_heights(self, heights: np.ndarray) -> np.ndarray:
         return np.concatenate([np.asarray(heights, dtype=np.int64).ravel(), [self.c, 0]])
 
@@ -171,6 +181,10 @@ class HexagonRegion(LozengeTiles, Region):
     def volume_polynomial(self) -> list:
         """Coefficients [n_0, n_1, ..., n_abc]: n_v plane partitions of volume v."""
         return counts.volume_polynomial(self.a, self.b, self.c)
+
+
+def _plane_partition_shaped(heights: Any, region: HexagonRegion) -> bool:
+    return np.shape(heights) == (region.a, region.b)
 
 
 def is_plane_partition(pp: np.ndarray, c: int) -> bool:

@@ -9,7 +9,8 @@ def region_from_record(record: dict, arrays: dict):
     """Rebuild a region from the record and arrays of a sample file."""
     q = record.get("q", 1.0)
     if record.get("shape") == "box":
-        return hexagon(*record["sides"], q=q)
+        a, b, c = record["sides"]
+        return hexagon(a, b, c, q=q)
     if "triangles" not in arrays:
         raise ValueError("the sample file lacks the region's triangles")
     description = {k: v for k, v in record.items() if k not in ("lattice", "q")}

@@ -1,6 +1,6 @@
 """Lozenges on the triangular lattice: geometry and plane partitions -> tiles.
 
-Conventions (DESIGN.md section 3). Lattice point (i, j) is the plane point
+Conventions (docs/design.md section 3). Lattice point (i, j) is the plane point
 i * (1, 0) + j * (1/2, sqrt(3)/2). The up triangle (x, y, 0) has corners
 (x, y), (x+1, y), (x, y+1); the down triangle (x, y, 1) has corners
 (x+1, y), (x, y+1), (x+1, y+1). A lozenge (x, y, t) is the up triangle

@@ -3,13 +3,13 @@
 In the unit square (x from the left, y from the bottom, u = x - 1/2, v = y - 1/2):
 
 - Free fermion c^2 = a^2 + b^2: the ellipse (u + v)^2 / (a^2/c^2) + (u - v)^2 / (b^2/c^2) = 1,
-  a the weight of the type filling the NW and SE corners (REFERENCES.md section 2,
+  a the weight of the type filling the NW and SE corners (docs/references.md section 2,
   derived by the tangent method; it coincides with the biased Aztec ellipse).
 - Uniform (Delta = 1/2, alternating sign matrices): four arcs of four ellipses,
   conjectured by Colomo and Pronko ("The limit shape of large alternating sign
   matrices", 2010) and proved by Aggarwal (Invent. Math. 220, 2020). The NW arc
   4x^2 + 4xy + 4y^2 - 8x - 4y + 1 = 0, x = (2r-1)^2 / (2(r^2-r+1)),
-  y = (4r-r^2-1) / (2(r^2-r+1)), r in [1/2, 1], is as derived in REFERENCES.md by
+  y = (4r-r^2-1) / (2(r^2-r+1)), r in [1/2, 1], is as derived in docs/references.md by
   the tangent method, not quoted from the papers: the tests compare it with samples.
   The other arcs follow by the square's rotations (uniform ASMs are symmetric under them).
 """

@@ -3,7 +3,7 @@ from __future__ import annotations
 
 import math
 from fractions import Fraction
-from typing import Dict, Iterator, Sequence, Tuple, Union
+from typing import Any, Dict, Iterator, Sequence, Tuple, Union
 
 import numpy as np
 
@@ -48,7 +48,7 @@ def _cell_types(top: Sequence[int], bottom: Sequence[int]) -> np.ndarray:
     return np.argmax(np.all(arrows[:, None, :] == TYPE_ARROWS[None, :, :], axis=-1), axis=-1)
 
 
-def row_transfer(boundary: np.ndarray, weights: Sequence[Number] = (1, 1, 1)) -> Number:
+def row_transfer(boundary: np.ndarray, weights: Sequence[Any] = (1, 1, 1)) -> Any:
     """Sum over configurations with the given boundary of prod over vertices of a, b or c.
 
     Exact (int or Fraction) row by row: the state is a row of corner heights,
@@ -95,7 +95,7 @@ def izergin_korepin(n: int, a: float, b: float, c: float, digits: int = 0):
     """Domain-wall partition function by the Izergin-Korepin determinant (Korepin 1982; Izergin 1987).
 
     With a = s sin(l + e), b = s sin(l - e), c = s sin 2e (Delta = cos 2e; e and l
-    complex when |Delta| > 1, REFERENCES.md section 1):
+    complex when |Delta| > 1, docs/references.md section 1):
     Z_n = s^(n^2) (sin(l+e) sin(l-e))^(n^2) / (prod_{k<n} k!)^2 det[phi^(i+j)(l)],
     phi(l) = sin 2e / (sin(l + e) sin(l - e)) = cot(l - e) - cot(l + e), whose
     derivatives are exact polynomials in the two cotangents. The determinant

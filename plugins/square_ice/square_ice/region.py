@@ -8,7 +8,7 @@ b, c1/c2 weighs c; Delta = (a^2 + b^2 - c^2) / (2ab).
 The local move raises or lowers one corner by 2 (when its four neighbours are
 equal). Its heat-bath law reads the four diagonal corners: raising a diagonal
 corner multiplies P(up)/P(down) by (c/a)^2 or (c/b)^2, so the rule is monotone
-exactly when c >= max(a, b) (REFERENCES.md section 5). frostline does not take
+exactly when c >= max(a, b) (docs/references.md section 5). frostline does not take
 that on trust: ``sample()`` runs the engine's monotonicity checker on the
 rule first and refuses exact sampling where it fails. ``chain()`` always works.
 
@@ -27,10 +27,10 @@ import numpy as np
 from frostline import _core
 from frostline._limits import check_memory
 from frostline._validate import integer
-from frostline.checker import check_monotone
 from frostline.methods import ChainKernel, ExactMethod, RunOptions
 from frostline.model import HeightModel
 from frostline.region import Region, Sample
+from frostline.toolkit.checker import check_monotone
 
 from . import conversions as cv
 from .counts import asm_count, izergin_korepin, row_transfer

@@ -10,7 +10,7 @@ from __future__ import annotations
 
 import time
 from dataclasses import dataclass
-from typing import Callable, List, Optional, Sequence, Tuple
+from typing import Any, Callable, List, Optional, Sequence, Tuple
 
 import numpy as np
 
@@ -31,7 +31,7 @@ class ComparisonRow:
     scale: float
 
 
-def compare(cases: Sequence[Tuple[str, Callable[[int], object]]], sizes: Sequence[int], seed: int = 0,
+def compare(cases: Sequence[Tuple[str, Callable[[int], Any]]], sizes: Sequence[int], seed: int = 0,
             smoothing: float = 2.0, tolerance: float = 0.1,
             progress: Optional[Callable[[str], None]] = None) -> List[ComparisonRow]:
     """Run every case at every size (one exact sample each); see the module docstring."""

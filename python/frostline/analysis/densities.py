@@ -2,11 +2,11 @@
 from __future__ import annotations
 
 from dataclasses import dataclass
-from typing import Dict, Sequence, Tuple, Union
+from typing import Any, Dict, Sequence, Tuple, Union
 
 import numpy as np
 
-Samples = Union[object, Sequence[object]]
+Samples = Union[Any, Sequence[Any]]  # one frostline.Sample or several
 
 
 def _as_list(samples: Samples) -> list:

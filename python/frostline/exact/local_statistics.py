@@ -8,7 +8,7 @@ for lozenges, weights 1 on horizontal and i on vertical dominoes (times the
 edge weights).
 
 Floating-point inverses of these matrices are badly conditioned
-(REFERENCES.md section 3): the inverse is refined by one Newton step and the
+(docs/references.md section 3): the inverse is refined by one Newton step and the
 probabilities around every vertex must sum to 1 within ``tolerance``;
 otherwise ValueError is raised rather than wrong numbers returned.
 """

@@ -19,7 +19,7 @@ def _pyplot():
     return plt
 
 
-def save(sample: Any, path: str, *, size: float = 6.0, dpi: int = 200, title: Optional[str] = None,
+def save(sample: Any, path: str | os.PathLike[str], *, size: float = 6.0, dpi: int = 200, title: Optional[str] = None,
          **style: Any) -> str:
     """Draw ``sample`` and write it to ``path`` (format from the extension: .png, .svg or .pdf).
 
@@ -40,7 +40,7 @@ def save(sample: Any, path: str, *, size: float = 6.0, dpi: int = 200, title: Op
     return str(path)
 
 
-def save_densities(densities: dict, path: str, *, title: Optional[str] = None, dpi: int = 200) -> str:
+def save_densities(densities: dict, path: str | os.PathLike[str], *, title: Optional[str] = None, dpi: int = 200) -> str:
     """One panel per tile class: tile centres coloured by their exact probability (0 to 1).
 
     ``densities`` maps class name to (centres (k, 2), probabilities (k,)), as

@@ -9,12 +9,12 @@ threshold of a two-point rule (so those rules are checked exactly).
 from __future__ import annotations
 
 from dataclasses import dataclass
-from typing import Any, Optional, Sequence, Union
+from typing import Any, Optional, Union
 
 import numpy as np
 
-from . import _core
-from .model import HeightModel
+from .. import _core
+from ..model import HeightModel
 
 
 @dataclass(frozen=True)
@@ -42,7 +42,7 @@ def _test_bits(rule: Optional[dict], count: int) -> np.ndarray:
 
 
 def check_monotone(target: Union[HeightModel, Any], *, q: float = 1.0, rule: Optional[dict] = None,
-                   sites: Optional[Sequence[int]] = None, window: int = 1, random_words: int = 256,
+                   sites: Optional[Any] = None, window: int = 1, random_words: int = 256,
                    max_sites: int = 4096) -> MonotonicityReport:
     """Check the heat-bath rule of a model (or of a region: its lowered model and rule).
 
@@ -98,7 +98,7 @@ def check_model(target: Any, *, cap: int = 200_000, q: float = 1.0, rule: Option
        exactly the configurations found by an independent depth-first search.
     3. The heat-bath rule is monotone (:func:`check_monotone`).
     """
-    from .exact.enumeration import enumerate_heights
+    from ..exact.enumeration import enumerate_heights
 
     model = target
     if not isinstance(target, HeightModel):
