@@ -13,6 +13,7 @@ import numpy as np
 import pytest
 from scipy import stats
 
+import frostline as fl
 from frostline import _core
 from frostline.domino.urban_renewal import aztec_partition_function
 from reference.aztec import (aztec_law, aztec_mask, aztec_partition_function as enumerated_partition_function,
@@ -295,7 +296,16 @@ def test_memory_estimate_refuses_huge_weighted_orders():
     # A read-only broadcast view: refused before any copy is made
     n = 3000
     horizontal = np.broadcast_to(1.0, (2 * n, 2 * n - 1))
-    with pytest.raises(ValueError, match=r"needs about .* GiB .* 2 GiB"):
+    with pytest.raises(ValueError, match=r"needs about .* GiB .* limit of 2.00 GiB"):
         shuffle(n, horizontal, None, key0=1, key1=2)
     with pytest.raises(ValueError, match=r"needs about .* GiB"):
         shuffle(10 ** 6, key0=1, key1=2)
+
+
+def test_shuffling_obeys_the_memory_limit_of_the_environment(monkeypatch):
+    """One memory policy: FROSTLINE_MEMORY_LIMIT governs shuffling too (passed down into C++)."""
+    region = fl.domino.aztec_diamond(300)
+    region.sample(seed=1, method="shuffling")  # fits the default limit
+    monkeypatch.setenv("FROSTLINE_MEMORY_LIMIT", "1e6")
+    with pytest.raises(ValueError, match="FROSTLINE_MEMORY_LIMIT"):
+        region.sample(seed=1, method="shuffling")

@@ -71,7 +71,6 @@ constexpr std::uint8_t top_edge = 1, right_edge = 2, bottom_edge = 4, left_edge 
 constexpr std::uint8_t horizontal_pair = top_edge | bottom_edge, vertical_pair = left_edge | right_edge;
 
 constexpr double two_to_53 = 9007199254740992.0;
-constexpr double memory_limit_bytes = 2.0 * 1024.0 * 1024.0 * 1024.0;
 // Below this the thresholds of every order are kept at once (one renewal pass);
 // above it orders are processed in segments (renewal done twice, far less memory).
 constexpr double single_pass_bytes = 256.0 * 1024.0 * 1024.0;
@@ -87,32 +86,6 @@ inline std::string gibibytes(double bytes) {
     std::string s = std::to_string(g);
     return s.substr(0, s.find('.') + 3) + " GiB";
 }
-
-// Polls the caller's hook about every 2^22 face updates (a few milliseconds).
-class poller {
-public:
-    explicit poller(const run_control* control) : control_(control) {}
-
-    void add(std::int64_t updates, std::int64_t order) {
-        progress_.site_updates += updates;
-        since_ += updates;
-        if (since_ >= (std::int64_t(1) << 22)) poll(order);
-    }
-
-    void poll(std::int64_t order) {
-        since_ = 0;
-        if (control_ == nullptr || !control_->keep_going) return;
-        progress_.start_time = order;
-        progress_.seconds = clock_.seconds();
-        if (!control_->keep_going(progress_)) throw cancelled();
-    }
-
-private:
-    const run_control* control_;
-    detail::stopwatch clock_;
-    run_progress progress_;
-    std::int64_t since_ = 0;
-};
 
 // p = 1/2 everywhere (the uniform law at every order): one bit per new pair.
 struct uniform_choice {
@@ -399,15 +372,18 @@ inline double aztec_shuffle_bytes(std::int64_t n, bool weighted, std::int64_t se
     return common_bytes(n) + (weighted ? plan_segments(n, segment_length).bytes : 0.0);
 }
 
-// Throws invalid_model, naming the estimate, when it exceeds 2 GiB.
-inline void check_aztec_memory(std::int64_t n, bool weighted, std::int64_t segment_length = 0) {
+// Throws invalid_model, naming the estimate, when it exceeds `limit_bytes`
+// (the caller's memory policy: FROSTLINE_MEMORY_LIMIT, read by Python).
+inline void check_aztec_memory(std::int64_t n, bool weighted, std::int64_t segment_length, double limit_bytes) {
     using namespace shuffling_detail;
     const double bytes = aztec_shuffle_bytes(n, weighted, segment_length);
-    if (bytes > memory_limit_bytes)
+    if (bytes > limit_bytes)
         throw invalid_model("shuffling the " + std::string(weighted ? "weighted " : "") +
                             "Aztec diamond of order " + std::to_string(n) + " needs about " + gibibytes(bytes) +
-                            " of memory, over the 2 GiB limit; use a smaller order" +
-                            (weighted ? " (or omit the weights: the uniform case needs no weight tables)" : ""));
+                            " of memory, over the limit of " + gibibytes(limit_bytes) +
+                            "; use a smaller order" +
+                            (weighted ? " (or omit the weights: the uniform case needs no weight tables)" : "") +
+                            ", or raise FROSTLINE_MEMORY_LIMIT (bytes)");
 }
 
 // One exact tiling of the Aztec diamond of order n. `horizontal` (2n x
@@ -416,21 +392,27 @@ inline void check_aztec_memory(std::int64_t n, bool weighted, std::int64_t segme
 // everywhere, both null the uniform law. Returns n(n+1) dominoes as
 // (r1, c1, r2, c2) rows, first cell top or left, sorted lexicographically.
 // Throws invalid_model for bad weights or when the memory estimate exceeds
-// 2 GiB, cancelled when control->keep_going returns false. segment_length:
+// limit_bytes, cancelled when control->keep_going returns false (polled by the
+// engine's poller about every 2^22 face updates). segment_length:
 // orders whose weight tables are kept at once (0: automatic; see
 // plan_segments); it changes memory and time, never the tiling.
 inline std::vector<std::int32_t> aztec_shuffle(std::int64_t n, const double* horizontal, const double* vertical,
                                                random_key key, const run_control* control = nullptr,
-                                               std::int64_t segment_length = 0) {
+                                               std::int64_t segment_length = 0,
+                                               double limit_bytes = 2.0 * 1024.0 * 1024.0 * 1024.0) {
     using namespace shuffling_detail;
     if (n < 0) throw invalid_model("the order n of the Aztec diamond must be >= 0, got " + std::to_string(n));
     if (segment_length < 0)
         throw invalid_model("segment_length must be >= 0 (0: automatic), got " + std::to_string(segment_length));
     if (n == 0) return {};
     const bool weighted = horizontal != nullptr || vertical != nullptr;
-    check_aztec_memory(n, weighted, segment_length);
+    check_aztec_memory(n, weighted, segment_length, limit_bytes);
 
-    poller poll(control);
+    // the engine's one poller; every 2^22 face updates is a few milliseconds
+    run_control polling = control != nullptr ? *control : run_control{};
+    polling.poll_interval = std::int64_t(1) << 22;
+    const frostline::detail::stopwatch clock;
+    frostline::detail::poller poll(polling, clock);
     face_grids faces(n);
     auto grow = [&](std::int64_t k, const auto& choice) {
         faces.step(k, choice, sweep_base(key, shuffling_stream, k));

@@ -47,11 +47,12 @@ std::optional<weight_array> weights_or_none(const py::object& value, const char*
 
 py::array_t<std::int32_t> aztec_shuffle(std::int64_t n, const py::object& horizontal, const py::object& vertical,
                                         std::uint64_t key0, std::uint64_t key1, const py::object& progress,
-                                        std::int64_t segment_orders) {
+                                        std::int64_t segment_orders, double memory_limit) {
     if (n < 0) throw invalid_model("the order n of the Aztec diamond must be >= 0, got " + std::to_string(n));
     // Refuse an order too large for memory before converting (copying) the weights.
     const bool weighted = !horizontal.is_none() || !vertical.is_none();
-    domino::check_aztec_memory(n, weighted, std::max<std::int64_t>(segment_orders, 0));
+    if (!(memory_limit > 0)) throw invalid_model("memory_limit must be a positive number of bytes");
+    domino::check_aztec_memory(n, weighted, std::max<std::int64_t>(segment_orders, 0), memory_limit);
     const auto h = weights_or_none(horizontal, "horizontal", n, 2 * n, std::max<std::int64_t>(2 * n - 1, 0),
                                    "(2n, 2n - 1)");
     const auto v = weights_or_none(vertical, "vertical", n, std::max<std::int64_t>(2 * n - 1, 0), 2 * n,
@@ -65,7 +66,8 @@ py::array_t<std::int32_t> aztec_shuffle(std::int64_t n, const py::object& horizo
         // Orders in the hundreds take seconds: free the GIL so other Python
         // threads run; the hook re-takes it to check for Ctrl-C.
         py::gil_scoped_release free;
-        dominoes = domino::aztec_shuffle(n, h_data, v_data, make_key(key0, key1), &control, segment_orders);
+        dominoes = domino::aztec_shuffle(n, h_data, v_data, make_key(key0, key1), &control, segment_orders,
+                                         memory_limit);
     }
     py::array_t<std::int32_t> out({static_cast<py::ssize_t>(n * (n + 1)), py::ssize_t(2), py::ssize_t(2)});
     std::copy(dominoes.begin(), dominoes.end(), out.mutable_data());
@@ -77,7 +79,7 @@ py::array_t<std::int32_t> aztec_shuffle(std::int64_t n, const py::object& horizo
 void register_domino_shuffling(py::module_& m) {
     m.def("aztec_shuffle", &aztec_shuffle, py::arg("n"), py::arg("horizontal") = py::none(),
           py::arg("vertical") = py::none(), py::arg("key0"), py::arg("key1"), py::arg("progress") = py::none(),
-          py::arg("segment_orders") = 0,
+          py::arg("segment_orders") = 0, py::arg("memory_limit") = 2.0 * 1024.0 * 1024.0 * 1024.0,
           R"doc(Exact domino tiling of the Aztec diamond of order n by domino shuffling.
 
 horizontal: None or float array (2n, 2n - 1); [r, c] weighs the domino on
@@ -88,6 +90,8 @@ for that orientation. key0, key1: the 128-bit key (same key, same tiling on
 every machine). progress(order, face_updates, seconds) is called every few
 milliseconds. segment_orders: testing aid, how many orders' weight tables
 are kept at once (0: automatic); it never changes the tiling.
+memory_limit: bytes the run may use (frostline passes FROSTLINE_MEMORY_LIMIT's
+value); a larger estimate is refused before anything is allocated.
 Returns int32 (n(n+1), 2, 2): each domino as [(r1, c1), (r2, c2)], first
 cell top or left, rows sorted.)doc");
 }

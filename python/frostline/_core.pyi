@@ -76,7 +76,7 @@ class domino:
     @staticmethod
     def aztec_shuffle(n: int, horizontal: Optional[npt.ArrayLike] = ..., vertical: Optional[npt.ArrayLike] = ...,
                       key0: int = ..., key1: int = ..., progress: ProgressHook = ...,
-                      segment_orders: int = ...) -> IntArray: ...
+                      segment_orders: int = ..., memory_limit: float = ...) -> IntArray: ...
 
 class square_ice:
     @staticmethod

@@ -21,7 +21,7 @@ from typing import Any, Dict, Optional, Tuple
 import numpy as np
 
 from frostline import _core
-from frostline._limits import check_memory
+from frostline._limits import check_memory, memory_limit
 from frostline.height_walk import integrate, refuse_holes, walk_boundary
 from frostline.methods import ChainKernel, ExactMethod, RunOptions
 from frostline.model import HeightModel
@@ -271,7 +271,8 @@ class DominoRegion(Region):
         n = self._description["order"]
         horizontal, vertical = self.weights if self.weights is not None else (None, None)
         started = time.perf_counter()
-        tiles = _core.domino.aztec_shuffle(n, horizontal, vertical, key[0], key[1], options.progress)
+        tiles = _core.domino.aztec_shuffle(n, horizontal, vertical, key[0], key[1], options.progress,
+                                           memory_limit=float(memory_limit()))
         seconds = time.perf_counter() - started
         heights = self.heights_from_tiles(np.asarray(tiles))
         # orders grown, and the 2 x 2 faces filled on the way (k^2 at order k)
