@@ -108,8 +108,9 @@ def _parser() -> argparse.ArgumentParser:
                                               "panel per tile class; lozenge regions with q = 1 and domino regions.")
     _add_shapes(density, sampling=False, picture_required=True)
     compare = commands.add_parser(
-        "compare", help="frozen boundaries of lozenges, dominoes and square ice against theory",
-        description="For a regular hexagon, an Aztec diamond and domain-wall square ice at each size: one exact "
+        "compare", help="frozen boundaries of every lattice's comparison family against theory",
+        description="For the comparison family each lattice declares (built in: a regular hexagon, an Aztec "
+                    "diamond and domain-wall square ice) at each size: one exact "
                     "sample, its density map, its empirical frozen boundary and the published arctic curve; writes "
                     "PREFIX.png, PREFIX.pdf and PREFIX.csv (distances in scaled units).")
     compare.add_argument("--sizes", type=int, nargs="+", default=[30, 60, 100], help="sizes n (default 30 60 100)")

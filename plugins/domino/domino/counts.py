@@ -8,6 +8,7 @@ from typing import Any
 import numpy as np
 
 from frostline.exact import integer_determinant
+from frostline.exact.certified import certified_log_abs_det
 
 
 def aztec_count(n: int) -> int:
@@ -107,7 +108,7 @@ def weighted_partition_function(region) -> Any:
     exact = _scaled_integer_det(k)
     if exact is not None:
         return exact
-    sign, log = np.linalg.slogdet(k)
+    log = certified_log_abs_det(k, tolerance=1e-10).value  # with a checked error bound, or ValueError
     if log < 700:
         return float(abs(math.exp(log)))
     import mpmath

@@ -19,6 +19,7 @@ from typing import Any, Dict, Tuple
 import numpy as np
 
 from .._limits import check_memory
+from .certified import CertifiedLog, certified_log_abs_det
 
 
 def placement_probabilities(region: Any, tolerance: float = 1e-6) -> Tuple[np.ndarray, np.ndarray]:
@@ -59,17 +60,19 @@ def class_densities(region: Any, tolerance: float = 1e-6) -> Dict[str, Tuple[np.
     return {name: (centres[classes == k], p[classes == k]) for k, name in enumerate(region.tile_classes)}
 
 
-def log_partition_function(region: Any) -> float:
-    """Natural log of the weighted number of tilings of a dimer region, in floating point.
+def log_partition_function(region: Any, tolerance: float = 1e-9) -> float:
+    """Natural log of the weighted number of tilings of a dimer region, within ``tolerance``.
 
     From a real Kasteleyn matrix (``region.kasteleyn_real()``: the plain
     adjacency for lozenges, the odd-column signing for dominoes, times edge
-    weights), by LU factorisation; for regions too large for exact integers.
+    weights). The value carries a checked error bound below ``tolerance``
+    (absolute, in natural-log units) or ValueError is raised; see
+    :func:`log_partition_function_bound` for the bound and the route taken.
     """
+    return log_partition_function_bound(region, tolerance).value
+
+
+def log_partition_function_bound(region: Any, tolerance: float = 1e-9) -> CertifiedLog:
+    """``log Z`` of a dimer region with its error bound and method (:mod:`frostline.exact.certified`)."""
     k = region.kasteleyn_real()
-    n = k.shape[0]
-    check_memory(16 * n * n + 10**6, f"the {n}x{n} Kasteleyn matrix")
-    sign, log = np.linalg.slogdet(k)
-    if sign == 0:
-        raise ValueError("the region has no tiling (the Kasteleyn determinant is 0)")
-    return float(log)
+    return certified_log_abs_det(k, tolerance)

@@ -10,6 +10,8 @@ from typing import Any, Optional
 
 FORMATS = (".png", ".svg", ".pdf")
 
+__all__ = ["FORMATS", "save", "save_densities"]
+
 
 def _pyplot():
     try:
