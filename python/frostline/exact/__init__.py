@@ -13,8 +13,12 @@ from . import formulas
 from .certified import CertifiedLog, certified_log_abs_det
 from .determinant import integer_determinant
 from .enumeration import EnumerationTooLarge, distribution, enumerate_configurations, enumerate_heights
-from .local_statistics import (class_densities, log_partition_function, log_partition_function_bound,
-                               placement_probabilities)
+from .local_statistics import (
+                               class_densities,
+                               log_partition_function,
+                               log_partition_function_bound,
+                               placement_probabilities,
+)
 
 enumerate = enumerate_configurations  # noqa: A001 - the public name of the contract (fl.exact.enumerate)
 
