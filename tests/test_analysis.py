@@ -163,3 +163,26 @@ def test_density_grid_and_boundary_arguments():
         density_grid([], bin_size=1)
     with pytest.raises(ValueError, match="empty"):
         curve_distance([], np.zeros((3, 2)))
+
+
+def test_sides_on_the_bounding_box_count_as_edge():
+    """A hexagon's top and bottom sides and every side of the square-ice domain lie on the grid's
+    bounding box; points next to them are edge points too (they were missed before)."""
+    from frostline.analysis.boundary import near_edge
+
+    for region, inside, on_box in [
+        (fl.lozenge.hexagon(20, 20, 20), (0.5, np.sqrt(3) / 2), [(0.5, 0.02), (0.5, np.sqrt(3) - 0.02)]),
+        (fl.square_ice.domain_wall(30), (0.5, 0.5), [(0.5, 0.01), (0.01, 0.5), (0.99, 0.5), (0.5, 0.99)]),
+    ]:
+        grid = density_grid(region.sample(seed=0), bin_size=0.5, smoothing=1.0)
+        mask = near_edge(grid, 0.05, scale=region.scale)
+        assert not mask(np.array([inside]))[0]
+        assert mask(np.array(on_box)).all()
+
+
+def test_excluding_points_never_increases_the_distance():
+    theory = np.stack([np.cos(np.linspace(0, 2 * np.pi, 400)), np.sin(np.linspace(0, 2 * np.pi, 400))], 1)
+    empirical = 1.05 * theory[:300]
+    full = curve_distance(empirical, theory)
+    for cut in (-0.9, 0.0, 0.5):
+        assert curve_distance(empirical, theory, exclude=lambda p, c=cut: p[:, 1] < c) <= full + 1e-12

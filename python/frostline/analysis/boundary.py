@@ -97,20 +97,45 @@ def _join(segments: List[Tuple[tuple, tuple]]) -> List[np.ndarray]:
     return sorted(lines, key=len, reverse=True)
 
 
+def _dilate(mask: np.ndarray, radius: float, dx: float, dy: float, outside: bool) -> np.ndarray:
+    """Bins within ``radius`` (plane units) of a True bin; bins beyond the array count as ``outside``."""
+    rx, ry = int(np.ceil(radius / dx)), int(np.ceil(radius / dy))
+    padded = np.pad(mask, ((rx, rx), (ry, ry)), constant_values=outside)
+    nx, ny = mask.shape
+    out = np.zeros_like(mask)
+    for i in range(-rx, rx + 1):
+        for j in range(-ry, ry + 1):
+            if (i * dx) ** 2 + (j * dy) ** 2 <= radius ** 2 + 1e-12:
+                out |= padded[rx + i: rx + i + nx, ry + j: ry + j + ny]
+    return out
+
+
 def near_edge(grid: DensityGrid, distance: float, scale: float = 1.0) -> Callable[[np.ndarray], np.ndarray]:
     """A mask function for :func:`curve_distance`: points (divided by ``scale``) within
-    ``distance`` (scaled units) of a bin outside the region."""
-    outside = np.argwhere(grid.counts == 0)
-    xy = np.stack([grid.x[outside[:, 0]], grid.y[outside[:, 1]]], axis=1) / scale
+    ``distance`` (scaled units) of the region's edge.
+
+    The region is the set of bins holding tiles, closed over gaps of one
+    lattice unit (bins can be finer than the spacing of tile centres); the edge
+    is everything else, including the ring just beyond the grid, so that sides
+    of the region lying on the grid's bounding box (a hexagon's top and bottom,
+    every side of a square) count as edge too. Distances are measured between
+    bin centres, to within one bin.
+    """
+    dx = float(grid.x[1] - grid.x[0]) if len(grid.x) > 1 else 1.0
+    dy = float(grid.y[1] - grid.y[0]) if len(grid.y) > 1 else 1.0
+    tiles = np.pad(grid.counts > 0, 1, constant_values=False)
+    region = ~_dilate(~_dilate(tiles, 1.0, dx, dy, False), 1.0, dx, dy, True)  # closing by one lattice unit
+    near = _dilate(~region, distance * scale, dx, dy, True)
+    nx, ny = near.shape
+    x0, y0 = grid.x[0] - dx, grid.y[0] - dy  # centre of padded bin (0, 0)
 
     def mask(points: np.ndarray) -> np.ndarray:
-        if len(xy) == 0:
-            return np.zeros(len(points), bool)
-        out = np.zeros(len(points), bool)
-        for k in range(0, len(points), 2000):
-            chunk = points[k:k + 2000]
-            d = np.sqrt(((chunk[:, None, :] - xy[None, :, :]) ** 2).sum(-1)).min(axis=1)
-            out[k:k + 2000] = d < distance
+        p = np.asarray(points, float) * scale
+        i = np.rint((p[:, 0] - x0) / dx).astype(np.int64)
+        j = np.rint((p[:, 1] - y0) / dy).astype(np.int64)
+        inside = (i >= 0) & (j >= 0) & (i < nx) & (j < ny)
+        out = np.ones(len(p), bool)
+        out[inside] = near[i[inside], j[inside]]
         return out
 
     return mask

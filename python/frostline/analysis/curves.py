@@ -25,18 +25,21 @@ def curve_distance(empirical: Union[np.ndarray, Sequence[np.ndarray]], theory: n
 
     ``empirical`` is a polyline or a list of them; both curves are densified to
     ``spacing`` (in the curves' units, e.g. scaled by the region size).
-    ``exclude(points) -> bool mask`` drops points of either curve from the
-    comparison (e.g. those next to the region's edge, where the liquid region
-    touches the boundary and a finite sample cannot show the tangency).
+    ``exclude(points) -> bool mask`` drops points of either curve as starting
+    points of the comparison (e.g. those next to the region's edge, where the
+    liquid region touches the boundary and a finite sample cannot show the
+    tangency); distances are still measured to the whole other curve, so
+    leaving points out can only lower the distance.
     """
     lines = [empirical] if isinstance(empirical, np.ndarray) else list(empirical)
     if not lines:
         raise ValueError("the empirical boundary is empty")
     a = np.concatenate([_densify(np.asarray(line, float), spacing) for line in lines])
     b = _densify(np.asarray(theory, float), spacing)
+    a_from, b_from = a, b
     if exclude is not None:
-        a, b = a[~exclude(a)], b[~exclude(b)]
-        if len(a) == 0 or len(b) == 0:
+        a_from, b_from = a[~exclude(a)], b[~exclude(b)]
+        if len(a_from) == 0 or len(b_from) == 0:
             raise ValueError("every point was excluded from the comparison")
 
     def directed(p: np.ndarray, q: np.ndarray) -> float:
@@ -46,4 +49,4 @@ def curve_distance(empirical: Union[np.ndarray, Sequence[np.ndarray]], theory: n
             worst = max(worst, float(d.max()))
         return worst
 
-    return max(directed(a, b), directed(b, a))
+    return max(directed(a_from, b), directed(b_from, a))
