@@ -40,7 +40,7 @@ py::tuple sample(std::shared_ptr<height_model> model, const int_array& least, co
         throw invalid_model("least and greatest states need one height per node");
     const auto [min_h, max_h] = height_range(least, greatest);
     const auto top = to_vector(greatest), bottom = to_vector(least);
-    return with_rule_spec(rule_spec, model->n_sites(), q, model->step(), min_h, max_h, [&](auto rule) {
+    return with_rule_spec(rule_spec, model->n_sites(), model->n_nodes(), q, model->step(), min_h, max_h, [&](auto rule) {
         generic_sweeper<decltype(rule)> sweeper(*model, rule, make_key(word0, word1), stream::coupling_from_the_past);
         return cftp_result(sweeper, top, bottom, progress, max_start_time, check_order);
     });
@@ -53,7 +53,7 @@ std::shared_ptr<forward_chain> make_chain(std::shared_ptr<height_model> model, c
     if (start.size() != model->n_nodes()) throw invalid_model("the start state needs one height per node");
     std::string why;
     if (!model->is_valid(to_vector(start), why)) throw invalid_model("the start state is not a valid configuration: " + why);
-    return with_rule_spec(rule_spec, model->n_sites(), q, model->step(), min_height, max_height, [&](auto rule) {
+    return with_rule_spec(rule_spec, model->n_sites(), model->n_nodes(), q, model->step(), min_height, max_height, [&](auto rule) {
         generic_sweeper<decltype(rule)> sweeper(*model, rule, make_key(word0, word1), stream::forward_chain);
         return chain_of(sweeper, to_vector(start), time, model);  // the chain keeps the model alive
     });
@@ -85,7 +85,7 @@ py::dict check_monotone(std::shared_ptr<height_model> model, double q, py::objec
     std::int64_t configurations = 0, comparisons = 0;
     out["monotone"] = true;
     out["detail"] = "";
-    with_rule_spec(rule_spec, model->n_sites(), q, model->step(), -reach, reach, [&](auto rule) {
+    with_rule_spec(rule_spec, model->n_sites(), model->n_nodes(), q, model->step(), -reach, reach, [&](auto rule) {
         for (py::ssize_t i = 0; i < sites.size(); ++i) {
             const auto r = check_site_monotone(*model, rule, sites.data()[i], window, bits);
             configurations += r.configurations;

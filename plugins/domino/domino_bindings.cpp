@@ -35,7 +35,7 @@ py::tuple corner_sample(std::shared_ptr<corner_layout> layout, const int_array& 
     check_state(*layout, least, "least");
     check_state(*layout, greatest, "greatest");
     const auto top = to_vector(greatest), bottom = to_vector(least);
-    return with_rule_spec(rule_spec, layout->n_sites(), 1.0, 4, 0, 0, [&](auto rule) {
+    return with_rule_spec(rule_spec, layout->n_sites(), layout->size(), 1.0, 4, 0, 0, [&](auto rule) {
         corner_sweeper<decltype(rule)> sweeper(*layout, rule, make_key(word0, word1), stream::coupling_from_the_past);
         return cftp_result(sweeper, top, bottom, progress, max_start_time, check_order);
     });
@@ -45,7 +45,7 @@ std::shared_ptr<forward_chain> corner_chain(std::shared_ptr<corner_layout> layou
                                             py::object rule_spec, std::uint64_t word0, std::uint64_t word1,
                                             std::int64_t time) {
     check_state(*layout, start, "start");
-    return with_rule_spec(rule_spec, layout->n_sites(), 1.0, 4, 0, 0, [&](auto rule) {
+    return with_rule_spec(rule_spec, layout->n_sites(), layout->size(), 1.0, 4, 0, 0, [&](auto rule) {
         corner_sweeper<decltype(rule)> sweeper(*layout, rule, make_key(word0, word1), stream::forward_chain);
         return chain_of(sweeper, to_vector(start), time, layout);  // the chain keeps the layout alive
     });

@@ -22,7 +22,7 @@ from typing import Any, Dict, Optional
 import numpy as np
 
 from . import _core
-from .model import HeightModel
+from .model import HeightModel, check_rule
 from .region import Region, Sample
 
 
@@ -48,6 +48,7 @@ class ModelRegion(Region):
             raise ValueError(f"q must be finite and positive, got {q}")
         if rule is not None and q != 1.0:
             raise ValueError("give either q or a two-point rule, not both")
+        check_rule(rule, model.n_sites, model.n_nodes)
         self.model, self.q, self.rule, self.name = model, q, rule, str(name)
         self.least, self.greatest = (h[: model.n_sites] for h in model.extremes())  # validity, with clear errors
 

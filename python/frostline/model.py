@@ -21,6 +21,7 @@ from typing import Callable, Optional, Tuple
 import numpy as np
 
 from . import _core
+from ._validate import integer
 
 ProgressHook = Optional[Callable[[int, int, float], None]]
 
@@ -40,6 +41,48 @@ def _int32(values, name: str) -> np.ndarray:
     if a.min() < -(2**31) or a.max() >= 2**31:
         raise ValueError(f"{name} holds values outside the 32-bit range")
     return np.ascontiguousarray(a, dtype=np.int32)
+
+
+def _index_array(value, name: str) -> np.ndarray:
+    a = np.asarray(value)
+    if a.ndim != 1 or (a.size and not np.issubdtype(a.dtype, np.integer)):
+        raise TypeError(f"rule entry {name!r} must be a 1-D integer array, got dtype {a.dtype} and shape {a.shape}")
+    return a.astype(np.int64)
+
+
+def check_rule(rule: Optional[dict], n_sites: int, n_nodes: int) -> None:
+    """Refuse a two-point rule dict whose arrays do not fit the model (before anything reaches C++).
+
+    C++ checks the same again at the binding boundary; this gives the clearer message first.
+    """
+    if rule is None:
+        return
+    if not isinstance(rule, dict):
+        raise TypeError(f"a rule is None or a dict, got {type(rule).__name__}")
+    if "thresholds" in rule:
+        t = np.asarray(rule["thresholds"])
+        if t.shape != (n_sites,):
+            raise ValueError(f"need one threshold per site: got shape {t.shape} for {n_sites} sites")
+        return
+    needed = ("context_start", "context_nodes", "context_offset", "context_table")
+    missing = [k for k in needed if k not in rule]
+    if missing:
+        raise ValueError(f"a rule dict needs 'thresholds' or the four context arrays; missing {missing}")
+    start = _index_array(rule["context_start"], "context_start")
+    nodes = _index_array(rule["context_nodes"], "context_nodes")
+    offset = _index_array(rule["context_offset"], "context_offset")
+    table = np.asarray(rule["context_table"])
+    if start.shape != (n_sites + 1,) or offset.shape != (n_sites,):
+        raise ValueError(f"context_start needs n_sites + 1 = {n_sites + 1} entries and context_offset {n_sites}; "
+                         f"got {start.size} and {offset.size}")
+    counts = np.diff(start)
+    if start[0] < 0 or start[-1] > nodes.size or np.any(counts < 0) or np.any(counts > 16):
+        raise ValueError(f"context_start must rise from >= 0 to <= len(context_nodes) = {nodes.size}, by 0 to 16 "
+                         "context nodes per site")
+    if nodes.size and (nodes.min() < 0 or nodes.max() >= n_nodes):
+        raise ValueError(f"context_nodes must be node ids 0..{n_nodes - 1}, got {nodes.min()}..{nodes.max()}")
+    if n_sites and (offset.min() < 0 or np.any(offset + (1 << counts) > table.size)):
+        raise ValueError(f"a site's context_offset runs past the end of context_table ({table.size} entries)")
 
 
 class HeightModel:
@@ -74,12 +117,21 @@ class HeightModel:
         colour_classes: np.ndarray,
         node_label: Optional[Callable[[int], str]] = None,
     ) -> None:
-        self.n_sites = int(n_sites)
-        self.step = int(step)
+        self.n_sites = integer(n_sites, "n_sites", 0, 2**31 - 2)
+        self.step = integer(step, "step", 1, 2**30)
         self.boundary_values = _int32(boundary_values, "boundary_values").ravel()
-        self.constraints = _int32(constraints, "constraints").reshape(-1, 3)
+        raw = np.asarray(constraints)
+        if raw.size and (raw.ndim != 2 or raw.shape[1] != 3):
+            raise ValueError(f"constraints must be an integer array of shape (E, 3) with rows (from, to, bound), "
+                             f"got shape {raw.shape}")
+        self.constraints = _int32(raw, "constraints").reshape(-1, 3)
         self.residues = _int32(residues, "residues").ravel()
         self.colour_classes = _int32(colour_classes, "colour_classes").ravel()
+        if self.colour_classes.size != self.n_sites:
+            raise ValueError(f"need one colour class per site: got {self.colour_classes.size} for {self.n_sites} sites")
+        if self.n_sites and self.colour_classes.min() < 0:
+            raise ValueError(f"colour classes are non-negative labels (updated in increasing order), got "
+                             f"{self.colour_classes.min()}")
         if self.n_sites < 0 or self.n_sites + self.boundary_values.size >= 2**31:
             raise ValueError(f"a model holds at most 2^31 - 1 nodes, got {self.n_sites} sites and "
                              f"{self.boundary_values.size} boundary nodes")
@@ -138,6 +190,7 @@ class HeightModel:
         reads the probability from a table indexed by which context nodes lie
         above the middle of the two values (six-vertex weights).
         """
+        check_rule(rule, self.n_sites, self.n_nodes)
         least, greatest = self.extremes()
         return _core.engine.sample(
             self._compiled, least, greatest, float(q), key[0], key[1], check_order, max_start_time, progress, rule
@@ -145,6 +198,7 @@ class HeightModel:
 
     def chain(self, q: float, key: Tuple[int, int], start: np.ndarray, time: int = 0, rule: Optional[dict] = None):
         """A compiled forward chain from ``start`` (heights over all nodes)."""
+        check_rule(rule, self.n_sites, self.n_nodes)
         low, high = self._height_range()
         return _core.engine.generic_chain(
             self._compiled, np.ascontiguousarray(start, dtype=np.int32), low, high, float(q), key[0], key[1], time, rule

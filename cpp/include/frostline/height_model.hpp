@@ -166,13 +166,20 @@ private:
         }
     }
 
-    void build_colour_classes(const std::vector<std::int32_t>& colour_of_site) {
-        std::int32_t n_classes = 0;
-        for (std::int32_t v = 0; v < n_sites_; ++v) {
-            if (colour_of_site[v] < 0)
+    void build_colour_classes(const std::vector<std::int32_t>& labels) {
+        for (std::int32_t v = 0; v < n_sites_; ++v)
+            if (labels[v] < 0)
                 throw invalid_model("colour class of site " + std::to_string(v) + " is negative");
-            n_classes = std::max(n_classes, colour_of_site[v] + 1);
-        }
+        // Classes are updated in increasing label order; labels need not be
+        // consecutive, so they are ranked (the class table never outgrows the sites).
+        std::vector<std::int32_t> distinct(labels.begin(), labels.end());
+        std::sort(distinct.begin(), distinct.end());
+        distinct.erase(std::unique(distinct.begin(), distinct.end()), distinct.end());
+        std::vector<std::int32_t> colour_of_site(labels.size());
+        for (std::size_t v = 0; v < labels.size(); ++v)
+            colour_of_site[v] = static_cast<std::int32_t>(
+                std::lower_bound(distinct.begin(), distinct.end(), labels[v]) - distinct.begin());
+        const auto n_classes = static_cast<std::int32_t>(distinct.size());
         // Sites of one class are updated as if simultaneously: no constraint
         // may join two of them, or the parallel update would be wrong.
         for (const auto& c : constraints_)

@@ -179,6 +179,10 @@ public:
           step_(step) {
         if (start_.empty() || offset_.size() + 1 != start_.size())
             throw invalid_model("context lists need start offsets for every site");
+        if (start_.front() < 0 || start_.back() > static_cast<std::int64_t>(node_.size()))
+            throw invalid_model("context_start must run within 0..len(context_nodes) = 0.." +
+                                std::to_string(node_.size()) + ", got " + std::to_string(start_.front()) + ".." +
+                                std::to_string(start_.back()));
         for (std::size_t v = 0; v + 1 < start_.size(); ++v) {
             const auto k = start_[v + 1] - start_[v];
             if (k < 0 || k > 16) throw invalid_model("a site may have at most 16 context nodes");
@@ -196,6 +200,14 @@ public:
         for (std::int64_t e = start_[site], k = 0; e < start_[site + 1]; ++e, ++k)
             pattern |= static_cast<std::uint32_t>(2 * static_cast<std::int64_t>(height[node_[e]]) > twice_mid) << k;
         return bits < table_[offset_[site] + pattern] ? hi : lo;
+    }
+
+    // Every context node must index the n_nodes heights the kernel reads.
+    void check_nodes(std::int64_t n_nodes) const {
+        for (std::size_t e = 0; e < node_.size(); ++e)
+            if (node_[e] < 0 || node_[e] >= n_nodes)
+                throw invalid_model("context node " + std::to_string(node_[e]) + " (entry " + std::to_string(e) +
+                                    " of context_nodes) is outside 0.." + std::to_string(n_nodes - 1));
     }
 
     std::int64_t wide_intervals() const { return wide_; }

@@ -14,7 +14,7 @@ from typing import Any, Optional, Union
 import numpy as np
 
 from .. import _core
-from ..model import HeightModel
+from ..model import HeightModel, check_rule
 
 
 @dataclass(frozen=True)
@@ -64,6 +64,7 @@ def check_monotone(target: Union[HeightModel, Any], *, q: float = 1.0, rule: Opt
     sites = np.asarray(sites, dtype=np.int32)
     if sites.size and (sites.min() < 0 or sites.max() >= n):
         raise ValueError(f"sites must lie in 0..{n - 1}")
+    check_rule(rule, model.n_sites, model.n_nodes)
     out = _core.engine.check_monotone(model._compiled, float(q), rule, sites, int(window), _test_bits(rule, random_words))
     return MonotonicityReport(bool(out["monotone"]), str(out["detail"]), int(sites.size), int(out["configurations"]),
                               int(out["comparisons"]))

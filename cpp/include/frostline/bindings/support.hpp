@@ -81,9 +81,11 @@ std::vector<T> vector_of(const py::handle& obj, const char* what) {
 // Calls body(rule) for a rule described from Python: None means the q rule
 // of with_rule; a dict with "thresholds" (uint64, one per site) the two-point
 // rule; a dict with "context_start", "context_nodes", "context_offset",
-// "context_table" the context rule. Dispatch happens once per call.
+// "context_table" the context rule, whose node ids must index the n_nodes
+// heights the kernel reads (checked here again, whatever Python checked, so no
+// path can read past an array). Dispatch happens once per call.
 template <class Body>
-auto with_rule_spec(const py::object& spec, std::int64_t n_sites, double q, std::int32_t step,
+auto with_rule_spec(const py::object& spec, std::int64_t n_sites, std::int64_t n_nodes, double q, std::int32_t step,
                     std::int64_t min_height, std::int64_t max_height, Body&& body) {
     if (spec.is_none()) return with_rule(q, step, min_height, max_height, body);
     if (!py::isinstance<py::dict>(spec)) throw invalid_model("a rule is None or a dict");
@@ -100,9 +102,11 @@ auto with_rule_spec(const py::object& spec, std::int64_t n_sites, double q, std:
         auto start = vector_of<std::int64_t>(d["context_start"], "context_start");
         if (static_cast<std::int64_t>(start.size()) != n_sites + 1)
             throw invalid_model("context_start needs n_sites + 1 entries");
-        return body(context_rule(std::move(start), vector_of<std::int32_t>(d["context_nodes"], "context_nodes"),
-                                 vector_of<std::int64_t>(d["context_offset"], "context_offset"),
-                                 vector_of<std::uint64_t>(d["context_table"], "context_table"), step));
+        context_rule rule(std::move(start), vector_of<std::int32_t>(d["context_nodes"], "context_nodes"),
+                          vector_of<std::int64_t>(d["context_offset"], "context_offset"),
+                          vector_of<std::uint64_t>(d["context_table"], "context_table"), step);
+        rule.check_nodes(n_nodes);
+        return body(std::move(rule));
     }
     throw invalid_model("a rule dict needs 'thresholds' or the four 'context_*' arrays");
 }
