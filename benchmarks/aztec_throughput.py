@@ -15,8 +15,9 @@ import frostline as fl
 
 
 def row(label: str, n: int, info) -> None:
-    rate = f"{info.site_updates / info.seconds:10.3g}" if info.site_updates else f"{'-':>10}"
-    print(f"{label:>22} {n:>6} {info.start_time:>8} {info.site_updates:>15,} {info.seconds:>10.3f} {rate}")
+    updates, start = info.report.get("site_updates", 0), info.report.get("start_time", 0)  # none for shuffling
+    rate = f"{updates / info.seconds:10.3g}" if updates else f"{'-':>10}"
+    print(f"{label:>22} {n:>6} {start:>8} {updates:>15,} {info.seconds:>10.3f} {rate}")
 
 
 def main() -> None:

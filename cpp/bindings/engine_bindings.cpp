@@ -1,6 +1,7 @@
 // Python face of the lattice-free engine: the generic height model, Thurston's
 // extremes, exact samples by coupling from the past, and forward chains.
 #include <memory>
+#include <set>
 
 #include "frostline/bindings/support.hpp"
 #include "frostline/enumeration.hpp"
@@ -74,30 +75,48 @@ py::array_t<std::int32_t> heat_bath_draws(std::int32_t lo, std::int32_t hi, std:
 py::dict check_monotone(std::shared_ptr<height_model> model, double q, py::object rule_spec,
                         const py::array_t<std::int32_t, py::array::c_style | py::array::forcecast>& sites,
                         std::int32_t window,
-                        const py::array_t<std::uint64_t, py::array::c_style | py::array::forcecast>& test_bits) {
+                        const py::array_t<std::uint64_t, py::array::c_style | py::array::forcecast>& test_bits,
+                        py::object progress) {
     if (window < 1 || window > 4) throw invalid_model("window must be 1..4 steps");
     const std::vector<std::uint64_t> bits(test_bits.data(), test_bits.data() + test_bits.size());
     // heights the check can meet: neighbours within `window` steps, plus the largest constraint bound
     std::int64_t widest = 0;
     for (const auto& c : model->constraints()) widest = std::max<std::int64_t>(widest, std::abs(c.bound));
     const std::int64_t reach = static_cast<std::int64_t>(window + 2) * model->step() + widest;
-    py::dict out;
-    std::int64_t configurations = 0, comparisons = 0;
-    out["monotone"] = true;
-    out["detail"] = "";
+    for (py::ssize_t i = 0; i < sites.size(); ++i)
+        if (sites.data()[i] < 0 || sites.data()[i] >= model->n_sites())
+            throw invalid_model("site " + std::to_string(sites.data()[i]) + " is outside 0.." +
+                                std::to_string(model->n_sites() - 1));
+    const std::vector<std::int32_t> chosen(sites.data(), sites.data() + sites.size());
+    std::int64_t configurations = 0, comparisons = 0, distinct = 0;
+    bool monotone = true;
+    std::string violation;
+    const auto control = make_control(progress, 0, false);
     with_rule_spec(rule_spec, model->n_sites(), model->n_nodes(), q, model->step(), -reach, reach, [&](auto rule) {
-        for (py::ssize_t i = 0; i < sites.size(); ++i) {
-            const auto r = check_site_monotone(*model, rule, sites.data()[i], window, bits);
+        // Why release the GIL: large regions take seconds; Ctrl-C is polled between sites.
+        py::gil_scoped_release free;
+        detail::stopwatch clock;
+        detail::poller poll(control, clock);
+        std::set<std::vector<std::int64_t>> seen;  // one check per kind of site (see site_signature)
+        for (const auto site : chosen) {
+            if (!seen.insert(site_signature(*model, rule, site)).second) continue;
+            ++distinct;
+            const auto r = check_site_monotone(*model, rule, site, window, bits);
             configurations += r.configurations;
             comparisons += r.comparisons;
+            poll.add(std::max<std::int64_t>(r.comparisons, 1) * 64, 0);
             if (!r.monotone) {
-                out["monotone"] = false;
-                out["detail"] = r.detail;
+                monotone = false;
+                violation = r.detail;
                 break;
             }
         }
         return 0;
     });
+    py::dict out;
+    out["monotone"] = monotone;
+    out["detail"] = violation;
+    out["distinct"] = distinct;
     out["configurations"] = configurations;
     out["comparisons"] = comparisons;
     return out;
@@ -145,7 +164,7 @@ void register_engine(py::module_& parent) {
           py::arg("rule") = py::none());
 
     m.def("check_monotone", &check_monotone, py::arg("model"), py::arg("q"), py::arg("rule"), py::arg("sites"),
-          py::arg("window"), py::arg("test_bits"),
+          py::arg("window"), py::arg("test_bits"), py::arg("progress") = py::none(),
           "Exhaustive monotonicity check of the heat-bath rule at the given sites (see monotonicity.hpp).");
 
     using long_array = py::array_t<std::int64_t, py::array::c_style | py::array::forcecast>;

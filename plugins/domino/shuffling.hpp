@@ -60,7 +60,7 @@
 namespace frostline::domino {
 
 // The random stream of domino shuffling: declared as "domino_shuffling" in the
-// domino LatticeSpec (domino/__init__.py); the value is part of the golden
+// domino LatticeSpec (domino/declaration.py); the value is part of the golden
 // samples and never changes.
 constexpr stream shuffling_stream = static_cast<stream>(3);
 

@@ -41,6 +41,10 @@ boundary paths: unit steps e, ne, nw, w, sw, se with counts, groups in
 parentheses; the path must close without touching itself."""
 
 
+#: options every shape gets from the command line itself; a lattice may not declare them
+RESERVED_OPTIONS = ("--seed", "--method", "--picture", "--output", "-h", "--help")
+
+
 def _shape_table() -> Dict[str, Tuple[str, Any]]:
     """Every CLI shape of every registered lattice: name -> (lattice, Shape).
 
@@ -53,6 +57,11 @@ def _shape_table() -> Dict[str, Tuple[str, Any]]:
     table: Dict[str, Tuple[str, Any]] = {}
     for spec in specs():
         for shape in spec.shapes:
+            clash = [a.flag for a in shape.arguments if a.flag in RESERVED_OPTIONS]
+            if clash:
+                warnings.warn(f"the shape {shape.name!r} of lattice {spec.name!r} declares {', '.join(clash)}, which "
+                              "the command line reserves; skipped", FrostlineWarning, stacklevel=2)
+                continue
             if shape.name in table:
                 warnings.warn(f"the shape {shape.name!r} of lattice {spec.name!r} is already taken by lattice "
                               f"{table[shape.name][0]!r}; skipped", FrostlineWarning, stacklevel=2)
@@ -288,7 +297,8 @@ def _lattices(args) -> int:
     for spec in specs():
         print(f"{spec.name}: {spec.summary}")
         for shape in spec.shapes:
-            arguments = " ".join(a.name.upper() if a.flag is None else f"[{a.flag}]" for a in shape.arguments)
+            arguments = " ".join(a.name.upper() if a.flag is None else f"[{a.flag} {a.name.upper()}]"
+                                 for a in shape.arguments)
             print(f"  shape {shape.name} {arguments}".rstrip() + f"  -- {shape.help}")
         if spec.closed_forms:
             print(f"  closed forms: {', '.join(spec.closed_forms)}")

@@ -62,15 +62,14 @@ class ModelRegion(Region):
         return np.asarray(node_heights[: self.model.n_sites], dtype=np.int32)
 
     def exactness_check(self) -> None:
-        """A two-point rule may not be monotone: check it (once) before claiming exactness."""
+        """A two-point rule may not be monotone: check it before claiming exactness."""
         if self.rule is None:
             return
         from .toolkit.checker import check_monotone
 
-        if not hasattr(self, "_monotone"):
-            self._monotone = check_monotone(self.model, q=self.q, rule=self.rule, max_sites=10**9)
-        if not self._monotone.monotone:
-            raise ValueError(f"this rule is not monotone ({self._monotone.detail}); coupling from the past "
+        report = check_monotone(self.model, q=self.q, rule=self.rule)  # Region caches the outcome
+        if not report.monotone:
+            raise ValueError(f"this rule is not monotone ({report.detail}); coupling from the past "
                              "would not be exact. Use chain() and frostline.equilibrium_diagnostics")
 
     def tiles_from_heights(self, heights: np.ndarray) -> np.ndarray:

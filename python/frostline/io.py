@@ -22,7 +22,7 @@ from .region import Sample, SampleInfo
 from .registry import spec
 
 FORMAT = "frostline-sample"
-FORMAT_VERSION = 1
+FORMAT_VERSION = 2  # 2: diagnostics hold the method's own figures under "report"; 1 is still read
 
 PathLike = Union[str, "os.PathLike[str]"]
 
@@ -35,7 +35,7 @@ def metadata(sample: Sample) -> Dict[str, Any]:
         "format_version": FORMAT_VERSION,
         "lattice": sample.region.lattice,
         "region": region,
-        "weights": {k: v for k, v in region.items() if k in spec(sample.region.lattice).weight_keys},
+        "weights": {k: v for k, v in region.items() if k in _weight_keys(sample.region.lattice)},
         "seed": sample.info.as_dict()["seed"],
         "frostline_version": __version__,
         "diagnostics": {k: v for k, v in sample.info.as_dict().items() if k != "seed"},
@@ -83,9 +83,21 @@ def load(path: PathLike) -> Sample:
     if declared.region_from_record is None:
         raise ValueError(f"the lattice {declared.name!r} does not rebuild regions from files")
     region = declared.region_from_record(record["region"], arrays)
+    try:  # the file's heights are untrusted: they must be a configuration of the rebuilt region
+        heights = region.check_heights(heights)
+    except (ValueError, TypeError) as exc:
+        raise ValueError(f"{path} is not a valid frostline sample file: its heights are not a configuration of "
+                         f"the region it describes ({exc})") from None
     info = SampleInfo.from_dict({**_diagnostics(record["diagnostics"]), "seed": record["seed"],
                                  "version": record["frostline_version"]})
     return Sample(region=region, heights=heights, info=info)
+
+
+def _weight_keys(name: str) -> tuple:
+    """The lattice's declared weight keys; none for regions of no registered lattice (run-time models)."""
+    from .registry import lattices
+
+    return spec(name).weight_keys if name in lattices() else ()
 
 
 def _diagnostics(d: Dict[str, Any]) -> Dict[str, Any]:
@@ -93,4 +105,7 @@ def _diagnostics(d: Dict[str, Any]) -> Dict[str, Any]:
     if "report" in d:
         return dict(d)
     top = {"method", "kernel", "seconds", "version"}
-    return {**{k: d[k] for k in top if k in d}, "report": {k: v for k, v in d.items() if k not in top}}
+    report = {k: v for k, v in d.items() if k not in top}
+    if d.get("method") == "shuffling":  # format 1 wrote zeroed coupling fields for shuffling runs
+        report = {"orders": report.get("epochs", 0)}
+    return {**{k: d[k] for k in top if k in d}, "report": report}

@@ -16,7 +16,7 @@ by the processor, so a seed keeps its sample.
 from __future__ import annotations
 
 from dataclasses import dataclass
-from typing import Any, Callable, Dict, Mapping, Tuple
+from typing import Any, Callable, Dict, Mapping, Optional, Tuple
 
 import numpy as np
 
@@ -51,11 +51,17 @@ class ChainKernel:
     make: Callable[[EngineKey, np.ndarray], Tuple[Any, Callable[[np.ndarray], np.ndarray]]]
 
 
-def resolve(table: Mapping[str, Any], method: Any, auto: str, what: str) -> Tuple[str, Any]:
-    """(name, entry) of ``method`` in ``table``; ``"auto"`` means ``auto``."""
+def resolve(table: Mapping[str, Any], method: Any, auto: str, what: str,
+            unavailable: Optional[Mapping[str, str]] = None) -> Tuple[str, Any]:
+    """(name, entry) of ``method`` in ``table``; ``"auto"`` means ``auto``.
+
+    ``unavailable`` maps methods the lattice has but this region cannot run to the reason.
+    """
     if not isinstance(method, str):
         raise TypeError(f"method must be a str, got {type(method).__name__}")
     name = auto if method == "auto" else method
+    if name not in table and unavailable and name in unavailable:
+        raise ValueError(unavailable[name])
     if name not in table:
         choices = ", ".join(["auto", *table])
         raise ValueError(f"method must be one of this region's {what} ({choices}), got {method!r}")

@@ -10,6 +10,7 @@ name.
 from __future__ import annotations
 
 import abc
+import threading
 from typing import Any, Callable, Dict, List, Optional, Tuple, Union
 
 import numpy as np
@@ -75,6 +76,10 @@ class Region(abc.ABC):
         """The forward-chain implementations, by the name ``chain(method=...)`` takes."""
         generic = self.generic_chain_kernel()
         return {"cftp": generic, "generic": generic}
+
+    def unavailable_methods(self) -> Dict[str, str]:
+        """Methods of the lattice that this region cannot run, with the reason (for clear errors)."""
+        return {}
 
     def auto_method(self) -> str:
         """The method "auto" stands for: a fixed rule of the region (the first entry by default)."""
@@ -152,12 +157,15 @@ class Region(abc.ABC):
         """``heights`` as an array of this region's layout, or ValueError/TypeError if it is not a configuration.
 
         A configuration keeps the boundary, satisfies every difference
-        constraint and the residue rule of the generic model.
+        constraint and the residue rule of the generic model. The array returned
+        is rebuilt from the model's nodes, so entries the layout keeps outside
+        the region (masked corners) hold their documented value (0), whatever
+        was given there.
         """
         h = np.asarray(heights)
-        least = self.extreme_heights()[0]
         if not np.issubdtype(h.dtype, np.integer):
             raise TypeError(f"heights must hold integers, got dtype {h.dtype}")
+        least = self.extreme_heights()[0]
         if h.shape != least.shape:
             raise ValueError(f"heights of this region have shape {least.shape}, got {h.shape}")
         model = self.heat_bath_rule()[0]
@@ -168,11 +176,40 @@ class Region(abc.ABC):
             raise ValueError("these heights change the region's fixed boundary")
         bad = nodes[c[:, 1]] - nodes[c[:, 0]] > c[:, 2]
         if bad.any():
-            raise ValueError(f"these heights are not a configuration of the region: {int(bad.sum())} neighbour "
-                             "differences break the height rule (see the lattice's conventions)")
-        if model.step > 1 and np.any((nodes[:n] - model.residues) % model.step):
-            raise ValueError(f"these heights break the residue rule (heights modulo {model.step})")
-        return h
+            first = c[np.argmax(bad)]
+            where = model._relabel(f"node {first[0]} and node {first[1]}")
+            raise ValueError(f"{int(bad.sum())} neighbour differences break the height rule, the first between "
+                             f"{where} (see the lattice's height conventions)")
+        off = (nodes[:n] - model.residues) % model.step if model.step > 1 else np.zeros(0)
+        if off.any():
+            where = model._relabel(f"site {int(np.argmax(off != 0))}")
+            raise ValueError(f"the height at {where} breaks the residue rule (heights modulo {model.step})")
+        return np.asarray(self.heights_from_model(nodes))
+
+    def __getstate__(self) -> Dict[str, Any]:
+        state = dict(self.__dict__)
+        state.pop("_exactness_lock", None)  # a lock does not pickle; a new one is made on demand
+        return state
+
+    def __setstate__(self, state: Dict[str, Any]) -> None:
+        self.__dict__.update(state)
+
+    def _check_exactness_once(self) -> None:
+        """Run :meth:`exactness_check` once per region, whichever thread asks first; others wait for it.
+
+        ``samples(threads=k)`` would otherwise run a costly check k times at once.
+        """
+        lock = self.__dict__.setdefault("_exactness_lock", threading.Lock())  # setdefault is atomic
+        with lock:
+            if "_exactness_outcome" not in self.__dict__:
+                try:
+                    self.exactness_check()
+                    self.__dict__["_exactness_outcome"] = None
+                except ValueError as exc:
+                    self.__dict__["_exactness_outcome"] = str(exc)
+        outcome = self.__dict__["_exactness_outcome"]
+        if outcome is not None:
+            raise ValueError(outcome)
 
     # ----- the shared API ------------------------------------------------------
     def sample(self, seed: SeedLike = None, *, method: str = "auto", check_order: bool = False,
@@ -203,9 +240,10 @@ class Region(abc.ABC):
         max_start_time = _check_count(max_start_time, "max_start_time")
         if max_start_time < 1:
             raise ValueError("max_start_time must be at least 1 sweep")
-        name, chosen = resolve(self.exact_methods(), method, self.auto_method(), "exact methods")
+        name, chosen = resolve(self.exact_methods(), method, self.auto_method(), "exact methods",
+                               self.unavailable_methods())
         if chosen.family == "cftp":
-            self.exactness_check()
+            self._check_exactness_once()
         options = RunOptions(bool(check_order), max_start_time, progress)
         heights, report = chosen.run(engine_key(sequence), options)
         seconds, figures = engine_report(report)
@@ -231,7 +269,8 @@ class Region(abc.ABC):
         threads = _check_count(threads, "threads")
         if threads < 1:
             raise ValueError("threads must be at least 1")
-        resolve(self.exact_methods(), method, self.auto_method(), "exact methods")  # fail before spawning
+        resolve(self.exact_methods(), method, self.auto_method(), "exact methods",
+                self.unavailable_methods())  # fail before spawning
         # spawn from a copy rebuilt from the record: spawning mutates a SeedSequence, and the
         # same seed must give the same ensemble every time it is passed
         children = seed_record(normalise_seed(seed)).sequence().spawn(k)

@@ -25,6 +25,7 @@ BUILTIN_DISTRIBUTION = "frostline"
 
 _loaded: Dict[str, ModuleType] = {}
 _targets_cache: Dict[str, str] = {}
+_builtin_cache: set = set()
 
 
 def _distribution(ep: metadata.EntryPoint) -> str:
@@ -48,6 +49,8 @@ def _scan() -> Dict[str, str]:
             if (dist, ep.value) not in outside[ep.name]:
                 outside[ep.name].append((dist, ep.value))
     targets = dict(builtin)
+    _builtin_cache.clear()
+    _builtin_cache.update(builtin)
     for name, claims in outside.items():
         if name in builtin:
             warnings.warn(f"the lattice name {name!r} is built in; the plugin from "
@@ -66,6 +69,12 @@ def _targets() -> Dict[str, str]:
     if not _targets_cache:
         _targets_cache.update(_scan())
     return _targets_cache
+
+
+def is_builtin(name: str) -> bool:
+    """True for a lattice registered by frostline itself."""
+    _targets()
+    return name in _builtin_cache
 
 
 def lattices() -> List[str]:

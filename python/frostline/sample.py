@@ -2,7 +2,6 @@
 from __future__ import annotations
 
 from dataclasses import dataclass, field
-from types import MappingProxyType
 from typing import Any, Dict, Mapping
 
 import numpy as np
@@ -31,8 +30,8 @@ class SampleInfo:
         the run from -T to 0 coalesced), ``coalescence_time`` (sweeps after -T
         at which the two chains met), ``site_updates`` (heat-bath updates, both
         chains, every epoch) and ``epochs`` (doublings). Shuffling methods report
-        their own (``order``, ``face_updates``). Each entry is also readable as an
-        attribute (``info.start_time``).
+        their own (domino shuffling: ``orders``, ``faces_filled``). Each entry is
+        also readable as an attribute (``info.start_time``).
     version : str
         frostline version (same seed and version give the same sample).
     """
@@ -45,7 +44,11 @@ class SampleInfo:
     version: str = __version__
 
     def __post_init__(self) -> None:
-        object.__setattr__(self, "report", MappingProxyType(dict(self.report)))
+        object.__setattr__(self, "report", dict(self.report))  # a copy: the caller's dict cannot change it
+
+    def __hash__(self) -> int:
+        return hash((self.method, self.kernel, self.seconds, self.seed, tuple(sorted(self.report.items())),
+                     self.version))
 
     def __getattr__(self, name: str) -> Any:
         # report entries read as attributes; only reached when no field matches

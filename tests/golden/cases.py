@@ -66,6 +66,8 @@ def cases() -> List[Tuple[str, Callable[[], np.ndarray]]]:
         ("aztec biased shuffling", lambda: _sample(aztec_biased, "shuffling")),
         ("aztec two-periodic shuffling", lambda: _sample(aztec_two, "shuffling")),
         ("aztec corner chain", lambda: _chain(aztec, "cftp")),
+        ("aztec auto", lambda: _sample(aztec, "auto")),
+        ("hexagon samples", lambda: np.stack([s.heights for s in hexagon.samples(3, seed=8, threads=2)])),
         ("rectangle corner", lambda: _sample(rect, "auto")),
         ("square ice corner", lambda: _sample(ice, "cftp")),
         ("square ice generic", lambda: _sample(ice, "generic")),

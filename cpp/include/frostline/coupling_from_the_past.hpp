@@ -95,7 +95,7 @@ private:
 template <class Sweeper, class = void>
 struct is_sweeper : std::false_type {};
 template <class Sweeper>
-struct is_sweeper<Sweeper, std::void_t<decltype(std::int64_t{std::declval<const Sweeper&>().n_sites()}),
+struct is_sweeper<Sweeper, std::void_t<decltype(static_cast<std::int64_t>(std::declval<const Sweeper&>().n_sites())),
                                        decltype(std::declval<const Sweeper&>().sweep(std::declval<std::int32_t*>(),
                                                                                     std::int64_t{}))>>
     : std::true_type {};

@@ -157,6 +157,7 @@ public:
 
     std::int64_t wide_intervals() const { return wide_; }
     std::size_t size() const { return threshold_.size(); }
+    std::uint64_t threshold(std::uint64_t site) const { return threshold_[site]; }
 
 private:
     std::vector<std::uint64_t> threshold_;
@@ -212,6 +213,7 @@ public:
 
     std::int64_t wide_intervals() const { return wide_; }
     const std::vector<std::int64_t>& context_start() const { return start_; }
+    std::int64_t table_offset(std::uint64_t site) const { return offset_[site]; }
     const std::vector<std::int32_t>& context_nodes() const { return node_; }
 
 private:

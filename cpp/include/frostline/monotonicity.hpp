@@ -55,10 +55,9 @@ inline std::pair<std::int32_t, std::int32_t> allowed(const height_model& model, 
 
 }  // namespace detail
 
+// The nodes a site's update reads: its constraint neighbours and its rule's context.
 template <class Rule>
-monotonicity_report check_site_monotone(const height_model& model, const Rule& rule, std::int32_t site,
-                                        std::int32_t window, const std::vector<std::uint64_t>& test_bits) {
-    if (site < 0 || site >= model.n_sites()) throw invalid_model("site out of range");
+std::vector<std::int32_t> neighbourhood(const height_model& model, const Rule& rule, std::int32_t site) {
     std::vector<std::int32_t> nodes;
     const auto& up = model.upper();
     const auto& down = model.lower();
@@ -68,6 +67,45 @@ monotonicity_report check_site_monotone(const height_model& model, const Rule& r
     std::sort(nodes.begin(), nodes.end());
     nodes.erase(std::unique(nodes.begin(), nodes.end()), nodes.end());
     nodes.erase(std::remove(nodes.begin(), nodes.end(), site), nodes.end());
+    return nodes;
+}
+
+// Everything check_site_monotone reads about a site, with node ids replaced by
+// their places in the site's neighbourhood: two sites with equal signatures get
+// the identical check (same enumeration, same draws), so a regular lattice is
+// checked once per kind of site instead of once per site.
+template <class Rule>
+std::vector<std::int64_t> site_signature(const height_model& model, const Rule& rule, std::int32_t site) {
+    const auto nodes = neighbourhood(model, rule, site);
+    auto place = [&](std::int32_t u) {
+        return static_cast<std::int64_t>(std::lower_bound(nodes.begin(), nodes.end(), u) - nodes.begin());
+    };
+    std::vector<std::int64_t> s{static_cast<std::int64_t>(nodes.size()), model.residue_of(site)};
+    for (auto u : nodes) s.push_back(model.residue_of(u));
+    const auto& up = model.upper();
+    const auto& down = model.lower();
+    s.push_back(-1);
+    for (std::int64_t e = up.start[site]; e < up.start[site + 1]; ++e) {
+        s.push_back(place(up.node[e]));
+        s.push_back(up.offset[e]);
+    }
+    s.push_back(-2);
+    for (std::int64_t e = down.start[site]; e < down.start[site + 1]; ++e) {
+        s.push_back(place(down.node[e]));
+        s.push_back(down.offset[e]);
+    }
+    s.push_back(-3);
+    for (auto u : detail::context_of(rule, site)) s.push_back(place(u));  // in the rule's order: bit k
+    if constexpr (std::is_same_v<Rule, flip_rule>) s.push_back(static_cast<std::int64_t>(rule.threshold(site)));
+    if constexpr (std::is_same_v<Rule, context_rule>) s.push_back(rule.table_offset(site));
+    return s;
+}
+
+template <class Rule>
+monotonicity_report check_site_monotone(const height_model& model, const Rule& rule, std::int32_t site,
+                                        std::int32_t window, const std::vector<std::uint64_t>& test_bits) {
+    if (site < 0 || site >= model.n_sites()) throw invalid_model("site out of range");
+    const auto nodes = neighbourhood(model, rule, site);
     if (nodes.size() > 12) throw invalid_model("the checker handles at most 12 neighbourhood nodes per site");
     const std::int32_t step = model.step();
     const std::int32_t values = 2 * window + 1;

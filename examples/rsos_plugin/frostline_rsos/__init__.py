@@ -78,7 +78,8 @@ class SurfaceRegion(Region):
 
     def _kernel_sample(self, key, options: RunOptions):
         h, report = _kernel.sample(self.rows, self.columns, self.max_height, self.q, key[0], key[1],
-                                   self._least.ravel(), self._greatest.ravel(), options.progress)
+                                   self._least.ravel(), self._greatest.ravel(), options.progress,
+                                   options.max_start_time, options.check_order)
         return np.asarray(h, np.int32).reshape(self.rows + 2, self.columns + 2)[1:-1, 1:-1].copy(), report
 
     def nodes_from_heights(self, heights: np.ndarray) -> np.ndarray:

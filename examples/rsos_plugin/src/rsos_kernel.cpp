@@ -60,7 +60,8 @@ private:
 };
 
 py::tuple sample(std::int32_t rows, std::int32_t columns, std::int32_t max_height, double q, std::uint64_t key0,
-                 std::uint64_t key1, const int_array& least, const int_array& greatest, py::object progress) {
+                 std::uint64_t key1, const int_array& least, const int_array& greatest, py::object progress,
+                 std::int64_t max_start_time, bool check_order) {
     if (rows < 1 || columns < 1 || max_height < 0) throw invalid_model("need rows, columns >= 1 and max_height >= 0");
     const std::int64_t padded = static_cast<std::int64_t>(rows + 2) * (columns + 2);
     if (least.size() != padded || greatest.size() != padded)
@@ -69,7 +70,7 @@ py::tuple sample(std::int32_t rows, std::int32_t columns, std::int32_t max_heigh
     return bindings::with_rule(q, 1, 0, max_height, [&](auto rule) {
         surface_sweeper<decltype(rule)> sweeper(rows, columns, max_height, rule, bindings::make_key(key0, key1),
                                                stream::coupling_from_the_past);
-        return bindings::cftp_result(sweeper, top, bottom, progress, std::int64_t(1) << 40, false);
+        return bindings::cftp_result(sweeper, top, bottom, progress, max_start_time, check_order);
     });
 }
 
@@ -80,5 +81,6 @@ PYBIND11_MODULE(_kernel, m) {
     frostline::bindings::register_exception_translators();
     m.def("sample", &rsos::sample, pybind11::arg("rows"), pybind11::arg("columns"), pybind11::arg("max_height"),
           pybind11::arg("q"), pybind11::arg("key0"), pybind11::arg("key1"), pybind11::arg("least"),
-          pybind11::arg("greatest"), pybind11::arg("progress") = pybind11::none());
+          pybind11::arg("greatest"), pybind11::arg("progress") = pybind11::none(),
+          pybind11::arg("max_start_time") = std::int64_t(1) << 40, pybind11::arg("check_order") = false);
 }

@@ -7,12 +7,14 @@ from typing import Any
 
 import numpy as np
 
+from frostline._validate import integer
 from frostline.exact import integer_determinant
 from frostline.exact.certified import certified_log_abs_det
 
 
 def aztec_count(n: int) -> int:
     """2^(n(n+1)/2) tilings of the Aztec diamond of order n (Elkies, Kuperberg, Larsen, Propp 1992; OEIS A006125)."""
+    n = integer(n, "the order n", 0, 2**24)
     return 2 ** (n * (n + 1) // 2)
 
 

@@ -167,8 +167,17 @@ class DominoRegion(Region):
         return out
 
     def tiles_from_heights(self, heights: np.ndarray) -> np.ndarray:
-        """Dominoes (k, 2, 2) of the tiling with these corner heights (crossed edges fall by 3)."""
-        flat = np.asarray(heights, dtype=np.int64).ravel()
+        """Dominoes (k, 2, 2) of the tiling with these corner heights (crossed edges fall by 3).
+
+        Raises ValueError when ``heights`` has the wrong shape or is not the
+        height function of a tiling (its dominoes must cover every cell once).
+        """
+        h = np.asarray(heights)
+        R, C = self.geometry.shape
+        if h.shape != (R + 1, C + 1) or not np.issubdtype(h.dtype, np.integer):
+            raise ValueError(f"corner heights of this region are an integer array of shape {(R + 1, C + 1)}, got "
+                             f"{h.dtype} of shape {h.shape}")
+        flat = h.astype(np.int64).ravel()
         g = self.geometry
         tiles = []
         for family, vertical_domino in ((g.horizontal, True), (g.vertical, False)):
@@ -180,6 +189,11 @@ class DominoRegion(Region):
                 cells = np.stack([np.stack([r, c - 1], 1), np.stack([r, c], 1)], 1)
             tiles.append(cells)
         out = np.concatenate(tiles).astype(np.int64)
+        covered = np.zeros((R, C), np.int64)
+        np.add.at(covered, (out[:, :, 0].ravel(), out[:, :, 1].ravel()), 1)
+        if not np.array_equal(covered, self.mask.astype(np.int64)):
+            raise ValueError("these heights are not the height function of a tiling of this region (the dominoes "
+                             "they give do not cover every cell exactly once)")
         order = np.lexsort((out[:, 1, 1], out[:, 1, 0], out[:, 0, 1], out[:, 0, 0]))
         return out[order]
 
@@ -242,6 +256,11 @@ class DominoRegion(Region):
         if self.is_aztec_diamond:
             table["shuffling"] = ExactMethod("shuffling", "shuffling", self._shuffle)
         return table
+
+    def unavailable_methods(self) -> Dict[str, str]:
+        if self.is_aztec_diamond:
+            return {}
+        return {"shuffling": "domino shuffling samples Aztec diamonds only; use method='cftp' for this region"}
 
     def auto_method(self) -> str:
         """Shuffling for Aztec diamonds (O(n^3), no coupling time), coupling from the past otherwise."""

@@ -70,6 +70,9 @@ def parse_path(text: str) -> List[Tuple[int, int]]:
                     raise ValueError(f"the count {tok} at position {at} of {text!r} is not followed by a direction")
                 at, tok = tokens[k]
             if tok == "(":
+                if depth >= MAX_NESTING:
+                    raise ValueError(f"the boundary path nests groups more than {MAX_NESTING} deep (at position {at}); "
+                                     "write the repetition with counts instead")
                 inner, k = sequence(k + 1, depth + 1)
                 steps += inner * count
                 continue
@@ -88,6 +91,7 @@ def parse_path(text: str) -> List[Tuple[int, int]]:
 
 
 MAX_STEPS = 10**7  # a boundary of 10^7 unit steps already encloses far more than fits in memory
+MAX_NESTING = 100  # groups inside groups; deeper paths are refused, not recursed into
 
 
 def path_length(text: str) -> int:

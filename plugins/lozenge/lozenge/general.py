@@ -119,7 +119,11 @@ class LozengeRegion(LozengeTiles, Region):
         return out
 
     def tiles_from_heights(self, heights: np.ndarray) -> np.ndarray:
-        """Lozenges (k, 3) of the tiling with these heights: edge (x, y, t) is crossed where the height falls by 2."""
+        """Lozenges (k, 3) of the tiling with these heights: edge (x, y, t) is crossed where the height falls by 2.
+
+        Raises ValueError when ``heights`` is not a height function of this region.
+        """
+        heights = self.check_heights(heights)
         full = np.zeros(self.grid.up.shape, dtype=np.int64)
         full[self._crop] = heights
         ox, oy = self.grid.origin

@@ -2,7 +2,7 @@
 from __future__ import annotations
 
 from fractions import Fraction
-from typing import Any, Dict
+from typing import Any, Dict, Tuple
 
 import numpy as np
 
@@ -125,9 +125,15 @@ class HexagonRegion(LozengeTiles, Region):
     def _cells(self, node_heights: np.ndarray) -> np.ndarray:
         return np.asarray(node_heights[: self.a * self.b], dtype=np.int32).reshape(self.a, self.b)
 
+    def extreme_heights(self) -> Tuple[np.ndarray, np.ndarray]:
+        """The empty and the full box (no generic model needed)."""
+        return (np.zeros((self.a, self.b), np.int32), np.full((self.a, self.b), self.c, np.int32))
+
     def check_heights(self, heights: Any) -> np.ndarray:
         """``heights`` if it is a plane partition in this box (shape (a, b), values in [0, c], non-increasing)."""
-        pp = super().check_heights(heights) if not _plane_partition_shaped(heights, self) else np.asarray(heights)
+        pp = np.asarray(heights)
+        if pp.shape != (self.a, self.b):
+            raise ValueError(f"a plane partition of this box has shape {(self.a, self.b)}, got {pp.shape}")
         if not np.issubdtype(pp.dtype, np.integer):
             raise TypeError(f"a plane partition must hold integers, got dtype {pp.dtype}")
         if not is_plane_partition(pp, self.c):
@@ -160,8 +166,8 @@ class HexagonRegion(LozengeTiles, Region):
         return compiled, lambda h: np.asarray(h).reshape(a + 2, b + 2)[1:-1, 1:-1].copy()
 
     def tiles_from_heights(self, heights: np.ndarray) -> np.ndarray:
-        """Lozenges (k, 3) of the tiling whose plane partition is ``heights``."""
-        return tiles_of_plane_partition(heights, self.c)
+        """Lozenges (k, 3) of the tiling whose plane partition is ``heights`` (checked: ValueError otherwise)."""
+        return tiles_of_plane_partition(self.check_heights(heights), self.c)
 
     def count(self) -> int:
         """Number of plane partitions in the box, by MacMahon's formula (OEIS A008793)."""
@@ -181,10 +187,6 @@ class HexagonRegion(LozengeTiles, Region):
     def volume_polynomial(self) -> list:
         """Coefficients [n_0, n_1, ..., n_abc]: n_v plane partitions of volume v."""
         return counts.volume_polynomial(self.a, self.b, self.c)
-
-
-def _plane_partition_shaped(heights: Any, region: HexagonRegion) -> bool:
-    return np.shape(heights) == (region.a, region.b)
 
 
 def is_plane_partition(pp: np.ndarray, c: int) -> bool:

@@ -76,7 +76,8 @@ def hexagon_minus(a: int, b: int, c: int, removed: Iterable, q: QLike = 1.0) -> 
     """
     a, b, c = side_length(a, "a"), side_length(b, "b"), side_length(c, "c")
     full = enclosed_triangles(parse_path(f"{a}e {b}ne {c}nw {a}w {b}sw {c}se"))
-    gone = _as_triangles(removed)
+    removed = list(removed) if not isinstance(removed, np.ndarray) else removed
+    gone = _as_triangles(removed) if len(removed) else np.zeros((0, 3), np.int64)  # nothing removed: the hexagon
     keys = {tuple(r) for r in full.tolist()}
     outside = [tuple(r) for r in gone.tolist() if tuple(r) not in keys]
     if outside:

@@ -238,8 +238,8 @@ class SquareIceRegion(Region):
 
     # ----- views -------------------------------------------------------------------------
     def tiles_from_heights(self, heights: np.ndarray) -> np.ndarray:
-        """Every vertex as a row (i, j, type code), row-major."""
-        types = cv.vertex_types_from_heights(heights)
+        """Every vertex as a row (i, j, type code), row-major (``heights`` checked: ValueError otherwise)."""
+        types = cv.vertex_types_from_heights(self.check_heights(heights))
         i, j = np.meshgrid(np.arange(self.n), np.arange(self.n), indexing="ij")
         return np.stack([i.ravel(), j.ravel(), types.ravel()], axis=1).astype(np.int64)
 

@@ -51,7 +51,7 @@ def _primes_below(limit: int) -> Iterator[int]:
 
 def _det_mod(matrix: np.ndarray, p: int) -> int:
     """Determinant modulo prime p (< 2^31) by elimination within each row's reach."""
-    m = np.mod(matrix, p).astype(np.int64)
+    m = np.mod(matrix, matrix.dtype.type(p)).astype(np.int64)
     n = m.shape[0]
     nonzero = m != 0
     # last column each row reaches; grows with fill-in
@@ -107,7 +107,10 @@ def integer_determinant(matrix: np.ndarray) -> int:
     n = a.shape[0]
     if n == 0:
         return 1
-    a = a.astype(np.int64)  # entries are reduced modulo 31-bit primes, so any int64 works
+    if a.dtype.kind == "u" and a.size and int(a.max()) >= 2**63:
+        a = a.astype(np.uint64)  # np.mod is exact on uint64: reduced modulo each prime without wrapping
+    else:
+        a = a.astype(np.int64)  # entries are reduced modulo 31-bit primes, so any int64 works
     # Hadamard: |det| <= prod of row norms; need the prime product > 2 * bound.
     norms = np.sqrt((a.astype(np.float64) ** 2).sum(axis=1))
     if np.any(norms == 0):

@@ -11,20 +11,32 @@ square ice). An outside lattice's closed forms appear here too.
 """
 from __future__ import annotations
 
+import warnings
 from typing import Any, Callable, Dict, List
+
+from ..errors import FrostlineWarning
+
+#: the built-in closed forms (an outside lattice cannot take these names)
+__all__ = ["asm_count", "aztec_count", "izergin_korepin", "macmahon", "q_macmahon", "rectangle_count",  # noqa: F822
+           "table", "volume_polynomial"]
 
 
 def table() -> Dict[str, Callable[..., Any]]:
-    """Every declared closed form, by name (a name declared by two lattices is an error)."""
-    from ..registry import specs
+    """Every declared closed form, by name.
+
+    A name declared by two lattices keeps the built-in one (or the first, by
+    lattice name) and the other is skipped with a warning.
+    """
+    from ..registry import is_builtin, specs
 
     out: Dict[str, Callable[..., Any]] = {}
     owner: Dict[str, str] = {}
-    for spec in specs():
+    for spec in sorted(specs(), key=lambda s: (not is_builtin(s.name), s.name)):
         for name, function in spec.closed_forms.items():
             if name in out and out[name] is not function:
-                raise ValueError(f"the closed form {name!r} is declared by lattices {owner[name]!r} and "
-                                 f"{spec.name!r}; one must rename it")
+                warnings.warn(f"the closed form {name!r} of lattice {spec.name!r} is already declared by "
+                              f"{owner[name]!r}; skipped", FrostlineWarning, stacklevel=2)
+                continue
             out[name], owner[name] = function, spec.name
     return out
 

@@ -26,6 +26,8 @@ class MonotonicityReport:
     sites_checked: int
     configurations: int     # neighbourhood assignments examined
     comparisons: int        # pairs of draws compared
+    distinct_neighbourhoods: int = 0  # kinds of site actually enumerated (equal kinds are checked once)
+    exhaustive: bool = True           # every site of the model was covered
 
     def __bool__(self) -> bool:
         return self.monotone
@@ -43,7 +45,7 @@ def _test_bits(rule: Optional[dict], count: int) -> np.ndarray:
 
 def check_monotone(target: Union[HeightModel, Any], *, q: float = 1.0, rule: Optional[dict] = None,
                    sites: Optional[Any] = None, window: int = 1, random_words: int = 256,
-                   max_sites: int = 4096) -> MonotonicityReport:
+                   max_sites: int = 10**7, progress: Any = None) -> MonotonicityReport:
     """Check the heat-bath rule of a model (or of a region: its lowered model and rule).
 
     Parameters
@@ -51,23 +53,34 @@ def check_monotone(target: Union[HeightModel, Any], *, q: float = 1.0, rule: Opt
     target : HeightModel or Region
         A region supplies its own model, q and rule (``region.heat_bath_rule()``).
     q, rule : the rule for a bare HeightModel (see :meth:`HeightModel.sample`).
-    sites : which sites to check; default all, or ``max_sites`` spread evenly beyond that
-        (a site-dependent rule can then escape the check: pass ``sites`` to be thorough).
+    sites : which sites to check; default all of them, or ``max_sites`` spread evenly
+        beyond that (then ``exhaustive`` is False in the report).
     window : neighbour heights range over +-window steps (1..4).
+    max_sites : at least 1.
+    progress : callable, optional; polled with the GIL released (Ctrl-C stops the check).
+
+    Sites whose neighbourhoods are alike (the same constraints, residues, rule
+    data and context, up to renaming the nodes) get the identical check, so the
+    engine enumerates each kind of site once: a regular lattice costs a few
+    dozen checks whatever its size.
     """
     model = target
     if not isinstance(target, HeightModel):
         model, q, rule = target.heat_bath_rule()
     n = model.n_sites
+    if isinstance(max_sites, bool) or not isinstance(max_sites, (int, np.integer)) or max_sites < 1:
+        raise ValueError(f"max_sites must be an int >= 1 (a check of no site proves nothing), got {max_sites!r}")
+    exhaustive = sites is None and n <= max_sites
     if sites is None:
         sites = np.arange(n) if n <= max_sites else np.unique(np.linspace(0, n - 1, max_sites).astype(np.int64))
     sites = np.asarray(sites, dtype=np.int32)
     if sites.size and (sites.min() < 0 or sites.max() >= n):
         raise ValueError(f"sites must lie in 0..{n - 1}")
     check_rule(rule, model.n_sites, model.n_nodes)
-    out = _core.engine.check_monotone(model._compiled, float(q), rule, sites, int(window), _test_bits(rule, random_words))
+    out = _core.engine.check_monotone(model._compiled, float(q), rule, sites, int(window),
+                                      _test_bits(rule, random_words), progress)
     return MonotonicityReport(bool(out["monotone"]), str(out["detail"]), int(sites.size), int(out["configurations"]),
-                              int(out["comparisons"]))
+                              int(out["comparisons"]), int(out["distinct"]), bool(exhaustive))
 
 
 @dataclass(frozen=True)
