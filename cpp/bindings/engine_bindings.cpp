@@ -8,6 +8,7 @@
 #include "frostline/graph_tools.hpp"
 #include "frostline/height_model.hpp"
 #include "frostline/monotonicity.hpp"
+#include "frostline/simd.hpp"
 #include "frostline/sweeps.hpp"
 #include "frostline/thurston.hpp"
 
@@ -135,6 +136,13 @@ void register_engine(py::module_& parent) {
         .def_property_readonly("step", &height_model::step)
         .def_property_readonly("n_colour_classes", &height_model::n_colour_classes);
 
+    m.def("simd_levels", [] {
+        py::list out;
+        for (auto level : simd_levels()) out.append(simd_name(level));
+        return out;
+    }, "Instruction-set levels of the vector kernels that this processor and build can run, slowest first.");
+    m.def("simd_choice", [] { return std::string(simd_name(simd_choice())); },
+          "The level the vector kernels use now (FROSTLINE_SIMD when set, else the fastest).");
     m.def("extremes", [](const height_model& model) {
         extremal_heights e;
         {

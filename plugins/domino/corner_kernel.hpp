@@ -15,16 +15,10 @@
 #include <vector>
 
 #include "frostline/errors.hpp"
+#include "corner_run.hpp"
 #include "frostline/random.hpp"
 
 namespace frostline::domino {
-
-struct corner_run {
-    std::int32_t row;
-    std::int32_t first;  // columns first..last (inclusive) are free corners
-    std::int32_t last;
-    std::int64_t first_site;
-};
 
 class corner_layout {
 public:
@@ -40,6 +34,8 @@ public:
         n_sites_ = site;
     }
 
+    std::int32_t rows() const { return rows_; }
+    std::int32_t columns() const { return columns_; }
     std::int64_t width() const { return columns_ + 1; }
     std::int64_t size() const { return static_cast<std::int64_t>(rows_ + 1) * width(); }
     std::int64_t n_sites() const { return n_sites_; }

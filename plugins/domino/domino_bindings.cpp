@@ -4,6 +4,7 @@
 #include "frostline/bindings/support.hpp"
 
 #include "corner_kernel.hpp"
+#include "corner_rows.hpp"
 
 namespace frostline::bindings {
 
@@ -31,9 +32,17 @@ void check_state(const corner_layout& layout, const int_array& a, const char* wh
 
 py::tuple corner_sample(std::shared_ptr<corner_layout> layout, const int_array& least, const int_array& greatest,
                         py::object rule_spec, std::uint64_t word0, std::uint64_t word1, bool check_order,
-                        std::int64_t max_start_time, py::object progress) {
+                        std::int64_t max_start_time, py::object progress, int threads) {
+    auto team = make_team(threads);
     check_state(*layout, least, "least");
     check_state(*layout, greatest, "greatest");
+    if (rule_spec.is_none()) {  // uniform weights: the vector kernels, on the split corner grid
+        domino::corner_split_sweeper sweeper(*layout, make_key(word0, word1), stream::coupling_from_the_past, team);
+        const auto& grid = sweeper.grid();
+        auto joined = [&grid](const std::vector<std::int32_t>& h) { return to_array(grid.join(h)); };
+        return cftp_result(sweeper, grid.split(greatest.data()), grid.split(least.data()), progress, max_start_time,
+                           check_order, joined);
+    }
     const auto top = to_vector(greatest), bottom = to_vector(least);
     return with_rule_spec(rule_spec, layout->n_sites(), layout->size(), 1.0, 4, 0, 0, [&](auto rule) {
         corner_sweeper<decltype(rule)> sweeper(*layout, rule, make_key(word0, word1), stream::coupling_from_the_past);
@@ -61,7 +70,7 @@ void register_domino(py::module_& parent) {
     m.def("corner_sample", &corner_sample, py::arg("layout"), py::arg("least"), py::arg("greatest"),
           py::arg("rule"), py::arg("key0"), py::arg("key1"), py::arg("check_order") = false,
           py::arg("max_start_time") = std::int64_t(1) << 40, py::arg("progress") = py::none(),
-          "Exact domino heights on the corner grid by CFTP with the fast kernel: (heights, report).");
+          py::arg("threads") = 1, "Exact domino heights on the corner grid by CFTP with the fast kernel: (heights, report).");
     m.def("corner_chain", &corner_chain, py::arg("layout"), py::arg("start"), py::arg("rule"),
           py::arg("key0"), py::arg("key1"), py::arg("time") = 0);
     register_domino_shuffling(m);

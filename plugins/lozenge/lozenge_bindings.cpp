@@ -17,19 +17,22 @@ void check_box(std::int32_t a, std::int32_t b, std::int32_t c) {
 
 py::array_t<std::int32_t> as_cells(const box_layout& layout, const std::vector<std::int32_t>& h) {
     py::array_t<std::int32_t> out({static_cast<py::ssize_t>(layout.rows()), static_cast<py::ssize_t>(layout.columns())});
-    layout.cells(h, out.mutable_data());
+    layout.cells(h.data(), out.mutable_data());
     return out;
 }
 
 py::tuple box_sample(std::int32_t a, std::int32_t b, std::int32_t c, double q, std::uint64_t word0,
-                     std::uint64_t word1, bool check_order, std::int64_t max_start_time, py::object progress) {
+                     std::uint64_t word1, bool check_order, std::int64_t max_start_time, py::object progress,
+                     int threads) {
     check_box(a, b, c);
+    auto team = make_team(threads);
     const box_layout layout(a, b, c);
     const auto top = layout.state(c), bottom = layout.state(0);
     // the engine works on the padded layout; Python gets the a x b plane partition
     auto cells = [&layout](const std::vector<std::int32_t>& h) { return as_cells(layout, h); };
     return with_rule(q, 1, 0, c, [&](auto rule) {
-        box_sweeper<decltype(rule)> sweeper(layout, rule, make_key(word0, word1), stream::coupling_from_the_past);
+        box_sweeper<decltype(rule)> sweeper(layout, rule, make_key(word0, word1), stream::coupling_from_the_past,
+                                            team);
         return cftp_result(sweeper, top, bottom, progress, max_start_time, check_order, cells);
     });
 }
@@ -52,11 +55,23 @@ void register_lozenge(py::module_& parent) {
     auto m = parent.def_submodule("lozenge", "Fast kernels of the lozenge plugin.");
     m.def("box_sample", &box_sample, py::arg("a"), py::arg("b"), py::arg("c"), py::arg("q"), py::arg("key0"),
           py::arg("key1"), py::arg("check_order") = false, py::arg("max_start_time") = std::int64_t(1) << 40,
-          py::arg("progress") = py::none(),
+          py::arg("progress") = py::none(), py::arg("threads") = 1,
           "Exact plane partition in the a x b x c box by CFTP with the fast kernel: (cells, report).");
     m.def("box_chain", &box_chain, py::arg("a"), py::arg("b"), py::arg("c"), py::arg("q"), py::arg("key0"),
           py::arg("key1"), py::arg("start"), py::arg("time") = 0,
-          "Forward heat-bath chain; its heights are the padded (a + 2) x (b + 2) array, row-major.");
+          "Forward heat-bath chain; its heights are the kernel's padded layout (box_cells reads them).");
+    m.def(
+        "box_cells",
+        [](std::int32_t a, std::int32_t b, std::int32_t c, const int_array& padded) {
+            check_box(a, b, c);
+            const box_layout layout(a, b, c);
+            if (padded.size() != layout.padded_size()) throw invalid_model("not the padded layout of this box");
+            py::array_t<std::int32_t> out({static_cast<py::ssize_t>(a), static_cast<py::ssize_t>(b)});
+            layout.cells(padded.data(), out.mutable_data());
+            return out;
+        },
+        py::arg("a"), py::arg("b"), py::arg("c"), py::arg("padded"),
+        "The a x b plane partition held in a box chain's padded heights.");
 }
 
 }  // namespace frostline::bindings

@@ -4,6 +4,7 @@
 #include "frostline/bindings/support.hpp"
 
 #include "ice_kernel.hpp"
+#include "ice_rows.hpp"
 
 namespace frostline::bindings {
 
@@ -31,14 +32,23 @@ void register_square_ice(py::module_& parent) {
     auto m = parent.def_submodule("square_ice", "Kernel of the square_ice plugin.");
     m.def("ice_sample", [](std::int32_t n, const table_array& table, const int_array& least,
                            const int_array& greatest, std::uint64_t word0, std::uint64_t word1, bool check_order,
-                           std::int64_t max_start_time, py::object progress) {
+                           std::int64_t max_start_time, py::object progress, int threads) {
+        auto team = make_team(threads);
         auto sweeper = make_sweeper(n, table, word0, word1, stream::coupling_from_the_past);
         check_size(n, least, "least");
         check_size(n, greatest, "greatest");
+        if (table.size() == 0) {  // uniform weights: the vector kernels, on the split corner grid
+            square_ice::ice_split_sweeper split(n, make_key(word0, word1), stream::coupling_from_the_past, team);
+            const auto& grid = split.grid();
+            auto joined = [&grid](const std::vector<std::int32_t>& h) { return to_array(grid.join(h)); };
+            return cftp_result(split, grid.split(greatest.data()), grid.split(least.data()), progress,
+                               max_start_time, check_order, joined);
+        }
         return cftp_result(sweeper, to_vector(greatest), to_vector(least), progress, max_start_time, check_order);
     }, py::arg("n"), py::arg("table"), py::arg("least"), py::arg("greatest"), py::arg("key0"),
        py::arg("key1"), py::arg("check_order") = false, py::arg("max_start_time") = std::int64_t(1) << 40,
-       py::arg("progress") = py::none(), "Exact square-ice heights by CFTP with the fast kernel: (heights, report).");
+       py::arg("progress") = py::none(), py::arg("threads") = 1,
+       "Exact square-ice heights (threads: uniform weights only) by CFTP with the fast kernel: (heights, report).");
     m.def("ice_chain", [](std::int32_t n, const table_array& table, const int_array& start, std::uint64_t word0,
                           std::uint64_t word1, std::int64_t time) {
         auto sweeper = make_sweeper(n, table, word0, word1, stream::forward_chain);

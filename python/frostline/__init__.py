@@ -71,7 +71,29 @@ __all__ = [
     "lattices",
     "load",
     "save",
+    "simd_level",
+    "simd_levels",
 ]
+
+
+def simd_levels() -> List[str]:
+    """Instruction-set levels of the vector kernels this processor and build can run, slowest first.
+
+    Some of ``"scalar"``, ``"avx2"``, ``"avx512"``. Every level gives the identical
+    sample for a seed; only the speed differs. The environment variable
+    ``FROSTLINE_SIMD`` forces one of them (read at every call; an unavailable
+    level raises ValueError).
+    """
+    from . import _core
+
+    return list(_core.engine.simd_levels())
+
+
+def simd_level() -> str:
+    """The level the vector kernels use now: ``FROSTLINE_SIMD`` when set, else the fastest available."""
+    from . import _core
+
+    return str(_core.engine.simd_choice())
 
 
 def get_include() -> str:

@@ -1,7 +1,7 @@
 # Type stubs for the compiled module frostline._core (private).
 # Its submodules are written as classes with static methods so that one stub
 # file describes them; at run time they are pybind11 submodules.
-from typing import Callable, Optional, Tuple
+from typing import Callable, List, Optional, Tuple
 
 import numpy as np
 import numpy.typing as npt
@@ -32,6 +32,10 @@ class engine:
     class ForwardChain(ForwardChain): ...
 
     @staticmethod
+    def simd_levels() -> List[str]: ...
+    @staticmethod
+    def simd_choice() -> str: ...
+    @staticmethod
     def extremes(model: engine.HeightModel) -> Tuple[IntArray, IntArray]: ...
     @staticmethod
     def sample(model: engine.HeightModel, least: IntArray, greatest: IntArray, q: float, key0: int, key1: int,
@@ -57,10 +61,12 @@ class engine:
 class lozenge:
     @staticmethod
     def box_sample(a: int, b: int, c: int, q: float, key0: int, key1: int, check_order: bool = ...,
-                   max_start_time: int = ..., progress: ProgressHook = ...) -> Tuple[IntArray, dict]: ...
+                   max_start_time: int = ..., progress: ProgressHook = ..., threads: int = ...) -> Tuple[IntArray, dict]: ...
     @staticmethod
     def box_chain(a: int, b: int, c: int, q: float, key0: int, key1: int, start: IntArray,
                   time: int = ...) -> ForwardChain: ...
+    @staticmethod
+    def box_cells(a: int, b: int, c: int, padded: IntArray) -> IntArray: ...
 
 class domino:
     class CornerLayout:
@@ -71,7 +77,7 @@ class domino:
     @staticmethod
     def corner_sample(layout: domino.CornerLayout, least: IntArray, greatest: IntArray, rule: Optional[dict],
                       key0: int, key1: int, check_order: bool = ..., max_start_time: int = ...,
-                      progress: ProgressHook = ...) -> Tuple[IntArray, dict]: ...
+                      progress: ProgressHook = ..., threads: int = ...) -> Tuple[IntArray, dict]: ...
     @staticmethod
     def corner_chain(layout: domino.CornerLayout, start: IntArray, rule: Optional[dict], key0: int, key1: int,
                      time: int = ...) -> ForwardChain: ...
@@ -84,7 +90,7 @@ class square_ice:
     @staticmethod
     def ice_sample(n: int, table: npt.ArrayLike, least: IntArray, greatest: IntArray, key0: int,
                    key1: int, check_order: bool = ..., max_start_time: int = ...,
-                   progress: ProgressHook = ...) -> Tuple[IntArray, dict]: ...
+                   progress: ProgressHook = ..., threads: int = ...) -> Tuple[IntArray, dict]: ...
     @staticmethod
     def ice_chain(n: int, table: npt.ArrayLike, start: IntArray, key0: int, key1: int,
                   time: int = ...) -> ForwardChain: ...

@@ -32,6 +32,7 @@ class RunOptions:
     check_order: bool = False
     max_start_time: int = 2**40
     progress: ProgressHook = None
+    threads: int = 1  # threads sharing each colour class; kernels without threads ignore it (same sample)
 
 
 @dataclass(frozen=True)

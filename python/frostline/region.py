@@ -213,7 +213,7 @@ class Region(abc.ABC):
 
     # ----- the shared API ------------------------------------------------------
     def sample(self, seed: SeedLike = None, *, method: str = "auto", check_order: bool = False,
-               max_start_time: int = 2**40, progress: ProgressHook = None) -> Sample:
+               max_start_time: int = 2**40, progress: ProgressHook = None, threads: int = 1) -> Sample:
         """One exact sample.
 
         Parameters
@@ -234,17 +234,26 @@ class Region(abc.ABC):
             Raise RuntimeError rather than go back further than this many sweeps.
         progress : callable(start_time, site_updates, seconds), optional
             Called about every 10^8 site updates and at each doubling.
+        threads : int
+            Threads that share each sweep (each takes a block of rows of a
+            colour class). The sample is the same for every thread count. The
+            vector kernels of uniform boxes, domino regions and square ice use
+            them; other kernels run on the calling thread. Worth it for large
+            regions only (a colour class must take well over a microsecond).
         """
         sequence = normalise_seed(seed)
         record = seed_record(sequence)  # before the run: a bad seed fails fast
         max_start_time = _check_count(max_start_time, "max_start_time")
         if max_start_time < 1:
             raise ValueError("max_start_time must be at least 1 sweep")
+        threads = _check_count(threads, "threads")
+        if not 1 <= threads <= 1024:
+            raise ValueError(f"threads must be between 1 and 1024, got {threads}")
         name, chosen = resolve(self.exact_methods(), method, self.auto_method(), "exact methods",
                                self.unavailable_methods())
         if chosen.family == "cftp":
             self._check_exactness_once()
-        options = RunOptions(bool(check_order), max_start_time, progress)
+        options = RunOptions(bool(check_order), max_start_time, progress, threads)
         heights, report = chosen.run(engine_key(sequence), options)
         seconds, figures = engine_report(report)
         info = SampleInfo(method=chosen.family, kernel=chosen.kernel, seconds=seconds, seed=record, report=figures)

@@ -274,7 +274,7 @@ class DominoRegion(Region):
         e = self._engine()
         heights, report = _core.domino.corner_sample(
             e["layout"], e["least"].ravel(), e["greatest"].ravel(), e["rule"], key[0], key[1],
-            options.check_order, options.max_start_time, options.progress)
+            options.check_order, options.max_start_time, options.progress, options.threads)
         return np.asarray(heights, dtype=np.int32).reshape(e["least"].shape), report
 
     def _corner_chain(self, key, heights: np.ndarray):

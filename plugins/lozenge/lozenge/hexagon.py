@@ -156,14 +156,16 @@ class HexagonRegion(LozengeTiles, Region):
 
     def _box_sample(self, key, options: RunOptions):
         cells, report = _core.lozenge.box_sample(self.a, self.b, self.c, self.q, key[0], key[1],
-                                                 options.check_order, options.max_start_time, options.progress)
+                                                 options.check_order, options.max_start_time, options.progress,
+                                                 options.threads)
         return np.asarray(cells, dtype=np.int32), report
 
     def _box_chain(self, key, heights: np.ndarray):
         a, b = self.a, self.b
         compiled = _core.lozenge.box_chain(a, b, self.c, self.q, key[0], key[1],
                                            np.ascontiguousarray(heights, dtype=np.int32).ravel())
-        return compiled, lambda h: np.asarray(h).reshape(a + 2, b + 2)[1:-1, 1:-1].copy()
+        c = self.c
+        return compiled, lambda h: _core.lozenge.box_cells(a, b, c, np.asarray(h))
 
     def tiles_from_heights(self, heights: np.ndarray) -> np.ndarray:
         """Lozenges (k, 3) of the tiling whose plane partition is ``heights`` (checked: ValueError otherwise)."""

@@ -219,7 +219,7 @@ class SquareIceRegion(Region):
     def _ice_sample(self, key, options: RunOptions):
         heights, report = _core.square_ice.ice_sample(self.n, self._table, self._least.ravel(),
                                                       self._greatest.ravel(), key[0], key[1], options.check_order,
-                                                      options.max_start_time, options.progress)
+                                                      options.max_start_time, options.progress, options.threads)
         return np.asarray(heights, dtype=np.int32).reshape(self._least.shape), report
 
     def _ice_chain(self, key, heights: np.ndarray):

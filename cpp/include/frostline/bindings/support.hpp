@@ -15,11 +15,22 @@
 #include "../errors.hpp"
 #include "../local_rule.hpp"
 #include "../random.hpp"
+#include "../thread_team.hpp"
 
 namespace frostline::bindings {
 
 namespace py = pybind11;
 using int_array = py::array_t<std::int32_t, py::array::c_style | py::array::forcecast>;
+
+// Threads sharing each colour class of one sample (null for one thread).
+inline std::shared_ptr<thread_team> make_team(int threads) {
+    if (threads < 1 || threads > 1024) throw invalid_model("threads must be between 1 and 1024");
+    // More spinning threads than cores only slows the team down; the sample is
+    // the same for any count, so asking for more is served with the cores there are.
+    const int cores = static_cast<int>(std::thread::hardware_concurrency());
+    if (cores > 0 && threads > cores) threads = cores;
+    return threads == 1 ? nullptr : std::make_shared<thread_team>(threads);
+}
 
 inline random_key make_key(std::uint64_t word0, std::uint64_t word1) { return random_key{word0, word1}; }
 

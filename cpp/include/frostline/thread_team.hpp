@@ -1,0 +1,117 @@
+// A small team of threads for splitting one sweep's colour class among cores.
+//
+// Sites of one colour class never neighbour each other, so a class can be cut
+// into blocks of rows updated at the same time: the sample does not depend on
+// the number of threads (each site still reads its own counter-based bits).
+// A class takes microseconds, so the team spins on an atomic generation
+// counter rather than sleeping on a condition variable (waking costs more
+// than the work); after a few thousand spins a waiting thread yields, so an
+// idle team costs little while the caller is busy elsewhere (a progress poll).
+// The team lives for one call (one exact sample) and joins its threads on
+// destruction.
+#pragma once
+#include <atomic>
+#include <cstdint>
+#include <exception>
+#include <functional>
+#include <mutex>
+#include <thread>
+#include <vector>
+
+#if defined(__x86_64__) || defined(_M_X64)
+#include <immintrin.h>
+#define FROSTLINE_PAUSE() _mm_pause()
+#else
+#define FROSTLINE_PAUSE() std::this_thread::yield()
+#endif
+
+namespace frostline {
+
+class thread_team {
+public:
+    explicit thread_team(int size) : size_(size < 1 ? 1 : size) {
+        for (int part = 1; part < size_; ++part) workers_.emplace_back([this, part] { work(part); });
+    }
+    thread_team(const thread_team&) = delete;
+    thread_team& operator=(const thread_team&) = delete;
+    ~thread_team() {
+        stop_.store(true, std::memory_order_relaxed);
+        generation_.fetch_add(1, std::memory_order_release);
+        for (auto& t : workers_) t.join();
+    }
+
+    int size() const { return size_; }
+
+    // Calls job(part) for every part in 0..size()-1 (part 0 on the calling
+    // thread) and returns when all have finished; an exception in any part is
+    // rethrown here. One run at a time (the caller's thread drives the team).
+    void run(const std::function<void(int)>& job) {
+        if (size_ == 1) {
+            job(0);
+            return;
+        }
+        job_ = &job;
+        remaining_.store(size_ - 1, std::memory_order_relaxed);
+        generation_.fetch_add(1, std::memory_order_release);
+        try {
+            job(0);
+        } catch (...) {
+            record(std::current_exception());
+        }
+        for (int spins = 0; remaining_.load(std::memory_order_acquire) != 0;) {
+            if (++spins < 4096)
+                FROSTLINE_PAUSE();
+            else
+                std::this_thread::yield();
+        }
+        if (error_) {
+            auto e = error_;
+            error_ = nullptr;
+            std::rethrow_exception(e);
+        }
+    }
+
+    // The half-open range [first, last) of part `part` when `n` items are cut evenly.
+    std::pair<std::int64_t, std::int64_t> block(std::int64_t n, int part) const {
+        return {n * part / size_, n * (part + 1) / size_};
+    }
+
+private:
+    void work(int part) {
+        std::uint64_t seen = 0;
+        for (;;) {
+            std::uint64_t now;
+            int spins = 0;
+            while ((now = generation_.load(std::memory_order_acquire)) == seen) {
+                if (++spins < 4096)
+                    FROSTLINE_PAUSE();
+                else
+                    std::this_thread::yield();
+            }
+            seen = now;
+            if (stop_.load(std::memory_order_relaxed)) return;
+            try {
+                (*job_)(part);
+            } catch (...) {
+                record(std::current_exception());
+            }
+            remaining_.fetch_sub(1, std::memory_order_release);
+        }
+    }
+
+    void record(std::exception_ptr e) {
+        std::lock_guard<std::mutex> hold(error_lock_);
+        if (!error_) error_ = e;
+    }
+
+    int size_;
+    std::vector<std::thread> workers_;
+    std::atomic<std::uint64_t> generation_{0};
+    std::atomic<int> remaining_{0};
+    std::atomic<bool> stop_{false};
+    const std::function<void(int)>* job_ = nullptr;
+    std::mutex error_lock_;
+    std::exception_ptr error_;
+};
+
+}  // namespace frostline

@@ -1,0 +1,10 @@
+// The domino row kernel compiled for the scalar level (flags set in CMakeLists.txt).
+#include <cstdint>
+
+#include "corner_run.hpp"
+
+namespace frostline::domino::simd_scalar {
+#include "frostline/vector/draws.inl"
+#include "frostline/vector/grid_rows.inl"
+#include "corner_rows.inl"
+}  // namespace frostline::domino::simd_scalar

@@ -1,0 +1,9 @@
+// The box row kernel compiled for the avx512 level (flags set in CMakeLists.txt).
+#include <cstdint>
+
+#include "box_geometry.hpp"
+
+namespace frostline::lozenge::simd_avx512 {
+#include "frostline/vector/draws.inl"
+#include "box_rows.inl"
+}  // namespace frostline::lozenge::simd_avx512

@@ -1,0 +1,9 @@
+// The box row kernel compiled for the scalar level (flags set in CMakeLists.txt).
+#include <cstdint>
+
+#include "box_geometry.hpp"
+
+namespace frostline::lozenge::simd_scalar {
+#include "frostline/vector/draws.inl"
+#include "box_rows.inl"
+}  // namespace frostline::lozenge::simd_scalar
