@@ -41,7 +41,7 @@ def test_bad_files(tmp_path):
     with pytest.raises(ValueError, match=".npz"):
         fl.save(fl.lozenge.hexagon(1, 1, 1).sample(seed=0), tmp_path / "s.txt")
     np.savez(tmp_path / "other.npz", x=np.zeros(3))
-    with pytest.raises(ValueError, match="not a frostline sample"):
+    with pytest.raises(ValueError, match="not a valid frostline sample"):
         fl.load(tmp_path / "other.npz")
     assert not list(tmp_path.glob(".*tmp"))  # no temporary file left behind
 

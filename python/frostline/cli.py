@@ -42,7 +42,7 @@ parentheses; the path must close without touching itself."""
 
 
 #: options every shape gets from the command line itself; a lattice may not declare them
-RESERVED_OPTIONS = ("--seed", "--method", "--picture", "--output", "-h", "--help")
+RESERVED_OPTIONS = ("--seed", "--method", "--picture", "--output", "--force", "-h", "--help")
 
 
 def _shape_table() -> Dict[str, Tuple[str, Any]]:
@@ -97,6 +97,8 @@ def _add_shapes(parent: argparse.ArgumentParser, sampling: bool, picture_require
             p.add_argument("--picture", type=Path, default=None, help="write a picture (.png, .svg or .pdf)")
             p.add_argument("--output", type=Path, default=None,
                            help="write the sample to a .npz file (heights, tiles, metadata record)")
+            p.add_argument("--force", action="store_true",
+                           help="replace an existing --output file (kept otherwise)")
 
 
 def _parser() -> argparse.ArgumentParser:
@@ -174,7 +176,7 @@ def _style(args) -> dict:
     return {a.style: getattr(args, a.name) for a in shape.arguments if a.style and hasattr(args, a.name)}
 
 
-def _check_outputs(picture: Optional[Path], output: Optional[Path]) -> None:
+def _check_outputs(picture: Optional[Path], output: Optional[Path], force: bool = False) -> None:
     """Refuse unusable output paths before a long run, not after it."""
     from .plot import FORMATS
 
@@ -184,6 +186,8 @@ def _check_outputs(picture: Optional[Path], output: Optional[Path]) -> None:
                              f"{', '.join(FORMATS)}")
     if output is not None and output.suffix != ".npz":
         raise ValueError(f"sample files end in .npz, got {output.name!r}")
+    if output is not None and output.exists() and not force:
+        raise ValueError(f"{output} exists; pass --force to replace it")
     for path in (picture, output):
         if path is not None and not path.resolve().parent.is_dir():
             raise ValueError(f"the folder of {path} does not exist")
@@ -192,7 +196,7 @@ def _check_outputs(picture: Optional[Path], output: Optional[Path]) -> None:
 def _sample(args) -> int:
     from .progress import StderrProgress
 
-    _check_outputs(args.picture, args.output)
+    _check_outputs(args.picture, args.output, args.force)
     progress = StderrProgress("building the region")
     region = _region(args)
     progress.note("coupling from the past")
@@ -201,15 +205,16 @@ def _sample(args) -> int:
     progress.finish()
     print(f"exact sample of {region!r} in {time.perf_counter() - started:.3g} s")
     _print_info(sample)
-    _write(sample, args.picture, getattr(args, "output", None), _style(args))
+    _write(sample, args.picture, getattr(args, "output", None), _style(args), args.force)
     return 0
 
 
-def _write(sample, picture: Optional[Path], output: Optional[Path], style: Optional[dict] = None) -> None:
+def _write(sample, picture: Optional[Path], output: Optional[Path], style: Optional[dict] = None,
+           force: bool = False) -> None:
     if output is not None:
         from .io import save
 
-        print(f"sample written to {save(sample, output)}")
+        print(f"sample written to {save(sample, output, overwrite=force)}")
     if picture is not None:
         from . import plot
 

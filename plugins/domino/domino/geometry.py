@@ -18,6 +18,7 @@ horizontal domino on cells (r, c-1), (r, c).
 from __future__ import annotations
 
 from dataclasses import dataclass
+from functools import cached_property
 from typing import Tuple
 
 import numpy as np
@@ -38,7 +39,13 @@ class Edges:
 
 
 class SquareGeometry:
-    """Corners and oriented edges of a mask of cells."""
+    """Corners and oriented edges of a mask of cells.
+
+    The full edge families (:attr:`horizontal`, :attr:`vertical`: several
+    int64 arrays over the whole grid) are built on first use only, so named
+    shapes that never need them (domino shuffling of a large Aztec diamond)
+    do not pay for them.
+    """
 
     def __init__(self, mask: np.ndarray) -> None:
         self.mask = mask
@@ -46,37 +53,84 @@ class SquareGeometry:
         self.shape = (R, C)
         pad = np.zeros((R + 2, C + 2), bool)
         pad[1:-1, 1:-1] = mask
+        self._pad = pad
         around = [pad[:-1, :-1], pad[:-1, 1:], pad[1:, :-1], pad[1:, 1:]]
         self.corner_in = np.logical_or.reduce(around)          # (R+1, C+1)
         self.corner_interior = np.logical_and.reduce(around)
-        width = C + 1
+
+    @cached_property
+    def _cell_id(self) -> np.ndarray:
+        R, C = self.shape
         cell_id = np.full((R + 2, C + 2), -1, dtype=np.int64)
         cell_id[1:-1, 1:-1] = np.arange(R * C).reshape(R, C)
+        return cell_id
 
-        # horizontal edges (r, c)-(r, c+1): r in 0..R, c in 0..C-1; cells above (r-1, c) and below (r, c)
+    @cached_property
+    def horizontal(self) -> Edges:
+        """Horizontal edges (r, c)-(r, c+1): r in 0..R, c in 0..C-1; cells above (r-1, c) and below (r, c)."""
+        R, C = self.shape
+        width = C + 1
+        pad, cell_id = self._pad, self._cell_id
         r, c = np.meshgrid(np.arange(R + 1), np.arange(C), indexing="ij")
         above, below = pad[:-1, 1:-1], pad[1:, 1:-1]
         rightwards = (r + c) % 2 == 1
         left_end, right_end = r * width + c, r * width + c + 1
-        self.horizontal = Edges(
+        return Edges(
             tail=np.where(rightwards, left_end, right_end).ravel(),
             head=np.where(rightwards, right_end, left_end).ravel(),
             inner=(above & below).ravel(), outer=(above ^ below).ravel(),
             cells=(cell_id[:-1, 1:-1].ravel(), cell_id[1:, 1:-1].ravel()),
             position=(r.ravel(), c.ravel()),
         )
-        # vertical edges (r, c)-(r+1, c): r in 0..R-1, c in 0..C; cells left (r, c-1) and right (r, c)
+
+    @cached_property
+    def vertical(self) -> Edges:
+        """Vertical edges (r, c)-(r+1, c): r in 0..R-1, c in 0..C; cells left (r, c-1) and right (r, c)."""
+        R, C = self.shape
+        width = C + 1
+        pad, cell_id = self._pad, self._cell_id
         r, c = np.meshgrid(np.arange(R), np.arange(C + 1), indexing="ij")
         left, right = pad[1:-1, :-1], pad[1:-1, 1:]
         downwards = (r + c) % 2 == 0
         top_end, bottom_end = r * width + c, (r + 1) * width + c
-        self.vertical = Edges(
+        return Edges(
             tail=np.where(downwards, top_end, bottom_end).ravel(),
             head=np.where(downwards, bottom_end, top_end).ravel(),
             inner=(left & right).ravel(), outer=(left ^ right).ravel(),
             cells=(cell_id[1:-1, :-1].ravel(), cell_id[1:-1, 1:].ravel()),
             position=(r.ravel(), c.ravel()),
         )
+
+    def outer_edges(self) -> Tuple[np.ndarray, np.ndarray]:
+        """(tails, heads) of the boundary edges (exactly one side in the region), horizontal ones first.
+
+        The same edges, orientation and order as the ``outer`` rows of the two
+        families, found without building them (the boundary is short).
+        """
+        R, C = self.shape
+        width = C + 1
+        pad = self._pad
+        r, c = np.nonzero(pad[:-1, 1:-1] ^ pad[1:, 1:-1])          # horizontal (r, c)-(r, c+1)
+        rightwards = (r + c) % 2 == 1
+        h_tail = np.where(rightwards, r * width + c, r * width + c + 1)
+        h_head = np.where(rightwards, r * width + c + 1, r * width + c)
+        r, c = np.nonzero(pad[1:-1, :-1] ^ pad[1:-1, 1:])          # vertical (r, c)-(r+1, c)
+        downwards = (r + c) % 2 == 0
+        v_tail = np.where(downwards, r * width + c, (r + 1) * width + c)
+        v_head = np.where(downwards, (r + 1) * width + c, r * width + c)
+        return (np.concatenate([h_tail, v_tail]).astype(np.int64), np.concatenate([h_head, v_head]).astype(np.int64))
+
+    def step_down(self, crossed_vertical: np.ndarray) -> np.ndarray:
+        """h(r + 1, c) - h(r, c) along every vertical edge, shape (R, C + 1).
+
+        +1 or -3 along the edge's orientation (downwards when r + c is even),
+        -3 when a horizontal domino crosses it (``crossed_vertical`` True).
+        """
+        R, C = self.shape
+        rise = 1 - 4 * np.asarray(crossed_vertical, dtype=np.int8)        # int8 arrays: this runs on millions
+        row_odd = (np.arange(R) % 2).astype(bool)[:, None]
+        column_odd = (np.arange(C + 1) % 2).astype(bool)[None, :]
+        return np.where(row_odd == column_odd, rise, -rise)
 
     def corner_name(self, corner: int) -> str:
         r, c = divmod(int(corner), self.shape[1] + 1)

@@ -22,7 +22,7 @@ import numpy as np
 
 from frostline import _core
 from frostline._limits import check_memory, memory_limit
-from frostline.height_walk import integrate, refuse_holes, walk_boundary
+from frostline.height_walk import refuse_holes, walk_boundary
 from frostline.methods import ChainKernel, ExactMethod, RunOptions
 from frostline.model import HeightModel
 from frostline.region import Region, Sample
@@ -63,30 +63,30 @@ class DominoRegion(Region):
             raise TypeError("class_offset must be an int")
         self.class_offset: int = int(class_offset) % 2
         self._description: Dict[str, Any] = description or {"shape": "mask"}
-        r, c = np.nonzero(self.mask)
-        black = int(((r + c) % 2 == 0).sum())
-        white = len(r) - black
-        if len(r) % 2:
-            raise ValueError(f"the region cannot be tiled: it has {len(r)} cells, an odd number")
+        cells = int(np.count_nonzero(self.mask))
+        black = int(np.count_nonzero(self.mask[0::2, 0::2]) + np.count_nonzero(self.mask[1::2, 1::2]))
+        white = cells - black
+        if cells % 2:
+            raise ValueError(f"the region cannot be tiled: it has {cells} cells, an odd number")
         if black != white:
             raise ValueError(f"the region cannot be tiled: it has {black} black and {white} white cells "
                              "(cell (r, c) is black when r + c is even), and every domino covers one of each")
         self.geometry: SquareGeometry = SquareGeometry(self.mask)
         self._engine_parts: Optional[Dict[str, Any]] = None
-        self._build()
+        self._build(known_tileable)
         if not known_tileable:
             self._engine()  # Thurston decides tileability now, naming the place on failure
 
-    def _build(self) -> None:
+    def _build(self, known_simply_connected: bool = False) -> None:
+        """Boundary heights and node numbering; holes refused (named shapes have none)."""
         g = self.geometry
         R, C = g.shape
         width = C + 1
-        families = (g.horizontal, g.vertical)
-        tails = np.concatenate([f.tail[f.outer] for f in families])
-        heads = np.concatenate([f.head[f.outer] for f in families])
-        corners = np.arange((R + 1) * width)
-        order = corners[np.lexsort((corners % width, -(corners // width)))]  # bottom row first
-        self._refuse_holes()
+        tails, heads = g.outer_edges()
+        points = np.unique(np.concatenate([tails, heads]))
+        order = points[np.lexsort((points % width, -(points // width)))]  # bottom row first
+        if not known_simply_connected:
+            self._refuse_holes()
         boundary, _ = walk_boundary(tails, heads, 1, order, g.residue, g.corner_name)
         interior = np.flatnonzero(g.corner_interior.ravel())
         boundary_points = np.array(sorted(boundary), dtype=np.int64)
@@ -177,25 +177,36 @@ class DominoRegion(Region):
         if h.shape != (R + 1, C + 1) or not np.issubdtype(h.dtype, np.integer):
             raise ValueError(f"corner heights of this region are an integer array of shape {(R + 1, C + 1)}, got "
                              f"{h.dtype} of shape {h.shape}")
-        flat = h.astype(np.int64).ravel()
-        g = self.geometry
-        tiles = []
-        for family, vertical_domino in ((g.horizontal, True), (g.vertical, False)):
-            crossed = family.inner & (flat[family.head] - flat[family.tail] == -3)
-            r, c = family.position[0][crossed], family.position[1][crossed]
-            if vertical_domino:   # edge (r, c)-(r, c+1) inside the domino on (r-1, c), (r, c)
-                cells = np.stack([np.stack([r - 1, c], 1), np.stack([r, c], 1)], 1)
-            else:                 # edge (r, c)-(r+1, c) inside the domino on (r, c-1), (r, c)
-                cells = np.stack([np.stack([r, c - 1], 1), np.stack([r, c], 1)], 1)
-            tiles.append(cells)
-        out = np.concatenate(tiles).astype(np.int64)
-        covered = np.zeros((R, C), np.int64)
-        np.add.at(covered, (out[:, :, 0].ravel(), out[:, :, 1].ravel()), 1)
-        if not np.array_equal(covered, self.mask.astype(np.int64)):
+        if h.size and (h.min() < -2**30 or h.max() > 2**30):
+            raise ValueError("these heights are not the height function of a tiling of this region (values "
+                             "beyond 2^30 in size)")
+        heights32 = h.astype(np.int32)                       # checked range: differences cannot overflow
+        pad = self.geometry._pad
+        row_odd = (np.arange(R + 1) % 2).astype(bool)[:, None]
+        column_odd = (np.arange(C + 1) % 2).astype(bool)[None, :]
+        # horizontal edges (r, c)-(r, c+1), rightwards when r + c is odd: h falls by 3 across a vertical domino
+        rise = heights32[:, 1:] - heights32[:, :-1]
+        fall = np.where(row_odd != column_odd[:, :-1], rise, -rise) == -3
+        r_v, c_v = np.nonzero(fall & pad[:-1, 1:-1] & pad[1:, 1:-1])
+        # vertical edges (r, c)-(r+1, c), downwards when r + c is even: likewise across a horizontal domino
+        rise = heights32[1:, :] - heights32[:-1, :]
+        fall = np.where(row_odd[:-1] == column_odd, rise, -rise) == -3
+        r_h, c_h = np.nonzero(fall & pad[1:-1, :-1] & pad[1:-1, 1:])
+        first = np.concatenate([(r_v - 1) * C + c_v, r_h * C + c_h - 1])      # top or left cell
+        second = np.concatenate([r_v * C + c_v, r_h * C + c_h])
+        covered = np.bincount(np.concatenate([first, second]), minlength=R * C)
+        if covered.size != R * C or not np.array_equal(covered, self.mask.ravel().astype(np.int64)):
             raise ValueError("these heights are not the height function of a tiling of this region (the dominoes "
                              "they give do not cover every cell exactly once)")
-        order = np.lexsort((out[:, 1, 1], out[:, 1, 0], out[:, 0, 1], out[:, 0, 0]))
-        return out[order]
+        # sorted by first cell (each cell is the first cell of at most one domino): a scatter, no sort
+        slot = np.full(R * C, -1, dtype=np.int64)
+        slot[first] = np.arange(first.size)
+        order = slot[slot >= 0]
+        first, second = first[order], second[order]
+        out = np.empty((first.size, 2, 2), dtype=np.int64)
+        out[:, 0, 0], out[:, 0, 1] = np.divmod(first, C)
+        out[:, 1, 0], out[:, 1, 1] = np.divmod(second, C)
+        return out
 
     def heights_from_tiles(self, tiles: np.ndarray) -> np.ndarray:
         """Corner heights of the tiling given as dominoes (k, 2, 2).
@@ -216,26 +227,24 @@ class DominoRegion(Region):
         cells = t.reshape(-1, 2)
         if cells.min() < 0 or np.any(cells[:, 0] >= R) or np.any(cells[:, 1] >= C):
             raise ValueError("a domino lies outside the mask")
-        count = np.zeros((R, C), dtype=np.int64)
-        np.add.at(count, (cells[:, 0], cells[:, 1]), 1)
-        if not np.array_equal(count, self.mask.astype(np.int64)):
+        count = np.bincount(cells[:, 0] * C + cells[:, 1], minlength=R * C)
+        if not np.array_equal(count, self.mask.ravel().astype(np.int64)):
             raise ValueError("the dominoes do not cover every cell of the region exactly once")
-        crossed_h = np.zeros((R + 1, C), bool)
         crossed_v = np.zeros((R, C + 1), bool)
-        vert = d[:, 0] == 1
-        crossed_h[t[vert, 1, 0], t[vert, 1, 1]] = True            # edge below the top cell
-        crossed_v[t[~vert, 1, 0], t[~vert, 1, 1]] = True          # edge left of the right cell
-        g = self.geometry
-        tails = np.concatenate([g.horizontal.tail[g.horizontal.inner], g.vertical.tail[g.vertical.inner]])
-        heads = np.concatenate([g.horizontal.head[g.horizontal.inner], g.vertical.head[g.vertical.inner]])
-        deltas = np.concatenate([np.where(crossed_h.ravel()[g.horizontal.inner], -3, 1),
-                                 np.where(crossed_v.ravel()[g.vertical.inner], -3, 1)])
-        values = np.zeros((R + 1) * (C + 1), dtype=np.int64)
-        values[self._boundary_points] = self._boundary_heights
-        known = np.zeros_like(values, dtype=bool)
-        known[self._boundary_points] = True
-        h = integrate(values, known, tails, heads, deltas)
-        return np.where(self.corner_mask.ravel(), h, 0).reshape(R + 1, C + 1).astype(np.int32)
+        horizontal = d[:, 0] == 0
+        crossed_v[t[horizontal, 1, 0], t[horizontal, 1, 1]] = True     # edge left of the right cell
+        # A valid tiling (checked above) has one height function: walk down the
+        # columns from the boundary, whose heights are known. Every interior
+        # corner's upper neighbour is a boundary or an interior corner of the row above.
+        step = self.geometry.step_down(crossed_v)
+        heights = np.zeros((R + 1) * (C + 1), dtype=np.int64)
+        heights[self._boundary_points] = self._boundary_heights
+        heights = heights.reshape(R + 1, C + 1)
+        interior = self.geometry.corner_interior
+        for r in range(1, R):
+            cols = interior[r]
+            heights[r, cols] = heights[r - 1, cols] + step[r - 1, cols]
+        return heights.astype(np.int32)
 
     def classify(self, tiles: np.ndarray) -> np.ndarray:
         """Class of each domino: 0 north, 1 south, 2 east, 3 west (see the module docstring)."""
