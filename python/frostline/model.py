@@ -158,6 +158,29 @@ class HeightModel:
                 raise ValueError(self._relabel(str(exc))) from None
         return self._extremes
 
+    def set_extremes(self, least: np.ndarray, greatest: np.ndarray) -> None:
+        """Give the least and greatest configurations when a plugin knows them in closed form.
+
+        Thurston's algorithm is then skipped. Both arrays (over all nodes) are
+        checked to be configurations: the boundary kept, every constraint and
+        residue met, least <= greatest; extremality is the plugin's claim, and
+        its tests compare it with :meth:`extremes` computed the general way.
+        """
+        pair = []
+        for name, heights in (("least", least), ("greatest", greatest)):
+            h = np.asarray(heights, dtype=np.int64)
+            if h.shape != (self.n_nodes,):
+                raise ValueError(f"the {name} configuration needs one height per node ({self.n_nodes})")
+            if not np.array_equal(h[self.n_sites:], self.boundary_values):
+                raise ValueError(f"the {name} configuration does not keep the boundary")
+            u, v, c = self.constraints[:, 0], self.constraints[:, 1], self.constraints[:, 2]
+            if np.any(h[v] - h[u] > c) or np.any((h[: self.n_sites] - self.residues) % self.step):
+                raise ValueError(f"the {name} configuration breaks a constraint or a residue")
+            pair.append(h.astype(np.int32))
+        if np.any(pair[0] > pair[1]):
+            raise ValueError("the least configuration lies above the greatest somewhere")
+        self._extremes = (pair[0], pair[1])
+
     def _relabel(self, message: str) -> str:
         """Replace engine node numbers in a message by the plugin's names for them."""
         if self._node_label is None:

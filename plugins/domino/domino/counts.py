@@ -3,13 +3,15 @@ from __future__ import annotations
 
 import math
 from fractions import Fraction
-from typing import Any
+from typing import Any, Optional
 
 import numpy as np
 
 from frostline._validate import integer
 from frostline.exact import integer_determinant
 from frostline.exact.certified import certified_log_abs_det
+
+from .geometry import aztec_mask
 
 
 def aztec_count(n: int) -> int:
@@ -18,19 +20,28 @@ def aztec_count(n: int) -> int:
     return 2 ** (n * (n + 1) // 2)
 
 
-def rectangle_count(m: int, n: int) -> int:
+def rectangle_count(m: int, n: int, *, budget: Optional[float] = None, max_digits: Optional[int] = None) -> int:
     """Domino tilings of an m x n rectangle by the Kasteleyn / Temperley-Fisher product (1961).
 
     prod_{j <= ceil(m/2)} prod_{k <= ceil(n/2)} (4 cos^2(pi j/(m+1)) + 4 cos^2(pi k/(n+1))),
     evaluated with enough digits (mpmath) that rounding to the nearest integer is exact.
+    Refuses (ValueError, with the estimate) more than ``max_digits`` digits or
+    an estimated time above ``budget`` seconds (None: no cap).
     """
+    from frostline.exact.budget import check_budget_argument, check_digits, check_seconds, product_seconds
+
+    budget = check_budget_argument(budget)
     if m * n % 2:
         return 0
     if m == 0 or n == 0:
         return 1
+    digits = int(0.13 * m * n) + 30  # entropy per cell G/pi = 0.2916 nats = 0.1266 digits
+    check_digits(0.1266 * m * n, max_digits, f"the count of the {m}x{n} rectangle")
+    terms = ((m + 1) // 2) * ((n + 1) // 2)
+    check_seconds(product_seconds(terms, digits * 3.33), budget, f"the count of the {m}x{n} rectangle",
+                  f"{terms} products at {digits} digits")
     import mpmath
 
-    digits = int(0.13 * m * n) + 30  # entropy per cell G/pi = 0.2916 nats = 0.1266 digits
     with mpmath.workdps(digits):
         cj = [4 * mpmath.cos(mpmath.pi * j / (m + 1)) ** 2 for j in range(1, (m + 1) // 2 + 1)]
         ck = [4 * mpmath.cos(mpmath.pi * k / (n + 1)) ** 2 for k in range(1, (n + 1) // 2 + 1)]
@@ -72,14 +83,37 @@ def kasteleyn_matrix(mask: np.ndarray, horizontal=None, vertical=None) -> np.nda
     return k
 
 
-def count_region(region) -> int:
-    """Exact count: closed forms for Aztec diamonds and rectangles, else |det K| with exact integers."""
+def count_region(region, budget: Optional[float] = None, max_digits: Optional[int] = None) -> int:
+    """Exact count: closed forms for Aztec diamonds and rectangles, else |det K| with exact integers.
+
+    ``budget`` (seconds) and ``max_digits`` cap the cost (see frostline.exact.budget; None: no cap).
+    """
+    from frostline.exact.budget import check_digits
+
     shape = region._description.get("shape")
     if shape == "aztec diamond":
-        return aztec_count(region._description["order"])
-    if shape == "rectangle":
-        return rectangle_count(*region.mask.shape)
-    return abs(integer_determinant(kasteleyn_matrix(region.mask)))
+        order = region._description["order"]
+        check_digits(order * (order + 1) / 2 * math.log10(2), max_digits, f"the count of the Aztec diamond {order}")
+        return aztec_count(order)
+    mask = region.mask
+    if shape == "rectangle" or mask.all():  # a full mask is a rectangle: the closed form
+        return rectangle_count(*mask.shape, budget=budget, max_digits=max_digits)
+    rows, columns = mask.shape
+    if rows == columns and rows % 2 == 0 and np.array_equal(mask, aztec_mask(rows // 2)):
+        check_digits(rows // 2 * (rows // 2 + 1) / 2 * math.log10(2), max_digits, "the count of this Aztec diamond")
+        return aztec_count(rows // 2)
+    if budget is not None:  # estimate from the mask, before the matrix is built
+        from frostline.exact.budget import check_seconds, determinant_seconds
+
+        black = int(np.count_nonzero(mask[0::2, 0::2]) + np.count_nonzero(mask[1::2, 1::2]))
+        # a black cell's white neighbours lie in the rows above and below at the same place: a matrix
+        # row reaches about one row of cells (two rows of white cells)
+        band = int(mask.sum(axis=1).max()) + 2
+        check_seconds(determinant_seconds(black, band, black + 2.0), budget,
+                      f"counting the tilings of this {rows}x{columns} mask by an exact determinant",
+                      f"{black} rows, about {black // 31 + 1} primes, rows reaching about {band} columns")
+    return abs(integer_determinant(kasteleyn_matrix(mask)))
+
 
 
 def weighted_partition_function(region) -> Any:

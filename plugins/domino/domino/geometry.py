@@ -144,3 +144,9 @@ class SquareGeometry:
     def residue(self, corner: int) -> int:
         r, c = divmod(int(corner), self.shape[1] + 1)
         return int(RESIDUE[r % 2, c % 2])
+
+
+def aztec_mask(n: int) -> np.ndarray:
+    """The 2n x 2n mask of cells whose centres (c - n + 1/2, n - r - 1/2) satisfy |x| + |y| <= n."""
+    r = np.arange(2 * n)  # rows and columns share the range: broadcast instead of two full grids
+    return np.abs(r - n + 0.5)[None, :] + np.abs(n - r - 0.5)[:, None] <= n

@@ -11,8 +11,8 @@ import numbers
 
 import numpy as np
 
+from .geometry import aztec_mask
 from .region import DominoRegion
-from .shapes import aztec_mask
 
 
 def _named_mask(description: dict):

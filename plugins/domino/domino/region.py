@@ -22,6 +22,7 @@ import numpy as np
 
 from frostline import _core
 from frostline._limits import check_memory, memory_limit
+from frostline.exact.budget import DEFAULT_BUDGET_SECONDS, DEFAULT_MAX_DIGITS
 from frostline.height_walk import refuse_holes, walk_boundary
 from frostline.methods import ChainKernel, ExactMethod, RunOptions
 from frostline.model import HeightModel
@@ -421,10 +422,17 @@ class DominoRegion(Region):
             out["horizontal"], out["vertical"] = self.weights
         return out
 
-    def count(self) -> int:
+    def count(self, *, budget: Optional[float] = DEFAULT_BUDGET_SECONDS,
+              max_digits: Optional[int] = DEFAULT_MAX_DIGITS) -> int:
+        """Number of domino tilings (exact): closed forms for Aztec diamonds and rectangles, else |det K|.
+
+        Refuses (ValueError, with the estimate) a computation estimated above
+        ``budget`` seconds (default 60) or a count above ``max_digits`` decimal
+        digits (default a million); None lifts either cap. Ctrl-C stops a run.
+        """
         from .counts import count_region
 
-        return count_region(self)
+        return count_region(self, budget=budget, max_digits=max_digits)
 
     def partition_function(self) -> Any:
         from .counts import weighted_partition_function

@@ -7,6 +7,7 @@ import numpy as np
 
 from frostline._validate import integer
 
+from .geometry import aztec_mask
 from .region import DominoRegion
 from .weights import biased, two_periodic
 
@@ -16,12 +17,6 @@ EMPTY = ".- _"
 
 def _order(n: Any, name: str) -> int:
     return integer(n, name, 1, 2**14)
-
-
-def aztec_mask(n: int) -> np.ndarray:
-    """The 2n x 2n mask of cells whose centres (c - n + 1/2, n - r - 1/2) satisfy |x| + |y| <= n."""
-    r, c = np.meshgrid(np.arange(2 * n), np.arange(2 * n), indexing="ij")
-    return np.abs(c - n + 0.5) + np.abs(n - r - 0.5) <= n
 
 
 def aztec_diamond(n: int, *, horizontal: Any = None, vertical: Any = None, vertical_weight: Optional[float] = None,

@@ -21,6 +21,7 @@ from typing import Any, Dict, Iterable, Optional, Tuple
 import numpy as np
 
 from frostline._limits import check_memory
+from frostline.exact.budget import DEFAULT_BUDGET_SECONDS
 from frostline.height_walk import integrate, walk_boundary
 from frostline.model import HeightModel
 from frostline.region import Region
@@ -224,16 +225,30 @@ class LozengeRegion(LozengeTiles, Region):
     def record_arrays(self) -> Dict[str, np.ndarray]:
         return {"triangles": self.triangles}
 
-    def count(self) -> int:
+    def count(self, *, budget: Optional[float] = DEFAULT_BUDGET_SECONDS) -> int:
         """Number of lozenge tilings: the determinant of the up-down triangle adjacency matrix.
 
         For lozenges every face of the dual (honeycomb) graph is a hexagon, so
         the plain 0/1 bipartite adjacency matrix is a Kasteleyn matrix (Kasteleyn
         1967; Kenyon, "Lectures on dimers", 2009) and |det| counts the tilings of
         a simply connected region; pieces multiply. Exact integers.
+        Refuses (ValueError, with the estimate) a determinant estimated to take
+        more than ``budget`` seconds (default 60; None: no cap; Ctrl-C stops it).
         """
         from frostline.exact import integer_determinant
+        from frostline.exact.budget import check_budget_argument, check_seconds, determinant_seconds
 
+        budget = check_budget_argument(budget)
+        if budget is not None:  # estimate from the triangles, before the dense matrix is built
+            up = self.triangles[self.triangles[:, 2] == 0]
+            down_rows = np.bincount(self.triangles[self.triangles[:, 2] == 1, 1] - self.triangles[:, 1].min())
+            # an up triangle's partners: two in its own row of down triangles, one in the row beside it at
+            # about the same place, so a row of the matrix reaches about one row of down triangles
+            band = int(down_rows.max()) + 2 if down_rows.size else 1
+            bits = len(up) * 0.5 * np.log2(3.0) + 2  # Hadamard: rows of at most three ones
+            check_seconds(determinant_seconds(len(up), band, bits), budget,
+                          f"counting the tilings of this region of {2 * len(up)} triangles by an exact determinant",
+                          f"{len(up)} rows, about {int(bits / 31) + 1} primes, rows reaching about {band} columns")
         return abs(integer_determinant(self.adjacency_matrix()))
 
     def adjacency_matrix(self) -> np.ndarray:

@@ -2,12 +2,13 @@
 from __future__ import annotations
 
 from fractions import Fraction
-from typing import Any, Dict, Tuple
+from typing import Any, Dict, Optional, Tuple
 
 import numpy as np
 
 from frostline import _core
 from frostline._limits import check_memory
+from frostline.exact.budget import DEFAULT_BUDGET_SECONDS, DEFAULT_MAX_DIGITS
 from frostline.methods import ChainKernel, ExactMethod, RunOptions
 from frostline.model import HeightModel
 from frostline.region import Region
@@ -171,9 +172,17 @@ class HexagonRegion(LozengeTiles, Region):
         """Lozenges (k, 3) of the tiling whose plane partition is ``heights`` (checked: ValueError otherwise)."""
         return tiles_of_plane_partition(self.check_heights(heights), self.c)
 
-    def count(self) -> int:
-        """Number of plane partitions in the box, by MacMahon's formula (OEIS A008793)."""
-        return counts.macmahon(self.a, self.b, self.c)
+    def count(self, *, max_digits: Optional[int] = DEFAULT_MAX_DIGITS) -> int:
+        """Number of plane partitions in the box, by MacMahon's formula (OEIS A008793).
+
+        Refuses (ValueError) a count of more than ``max_digits`` decimal digits
+        (default a million; None: no cap); ``log_count()`` gives its logarithm.
+        """
+        return counts.macmahon(self.a, self.b, self.c, max_digits=max_digits)
+
+    def log_count(self) -> float:
+        """Natural logarithm of the number of plane partitions in the box (floating point, any size)."""
+        return counts.log_macmahon(self.a, self.b, self.c)
 
     def partition_function(self) -> Any:
         """Sum of q^volume over plane partitions in the box (MacMahon's q-analogue).
@@ -186,9 +195,13 @@ class HexagonRegion(LozengeTiles, Region):
             return self.count()
         return counts.q_partition_function(self.a, self.b, self.c, self._q_exact)
 
-    def volume_polynomial(self) -> list:
-        """Coefficients [n_0, n_1, ..., n_abc]: n_v plane partitions of volume v."""
-        return counts.volume_polynomial(self.a, self.b, self.c)
+    def volume_polynomial(self, *, budget: Optional[float] = DEFAULT_BUDGET_SECONDS) -> list:
+        """Coefficients [n_0, n_1, ..., n_abc]: n_v plane partitions of volume v.
+
+        Refuses (ValueError, with the estimate) what would take more than
+        ``budget`` seconds (default 60; None: no cap).
+        """
+        return counts.volume_polynomial(self.a, self.b, self.c, budget=budget)
 
 
 def is_plane_partition(pp: np.ndarray, c: int) -> bool:

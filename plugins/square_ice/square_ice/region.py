@@ -27,6 +27,7 @@ import numpy as np
 from frostline import _core
 from frostline._limits import check_memory
 from frostline._validate import integer
+from frostline.exact.budget import DEFAULT_MAX_DIGITS
 from frostline.methods import ChainKernel, ExactMethod, RunOptions
 from frostline.model import HeightModel
 from frostline.region import Region, Sample
@@ -34,6 +35,7 @@ from frostline.toolkit.checker import check_monotone
 
 from . import conversions as cv
 from .counts import asm_count, izergin_korepin, row_transfer
+from .extremes import extremes as closed_form_extremes
 
 #: the cells around a corner, in context order NW, NE, SW, SE, and which weight their zero type has
 CELL_WEIGHT = ("a", "b", "b", "a")
@@ -141,6 +143,12 @@ class SquareIceRegion(Region):
         corner_name = lambda k: f"corner ({int(np.concatenate([ids, border])[k]) // w}, {int(np.concatenate([ids, border])[k]) % w})"  # noqa: E731
         self._model = HeightModel(len(ids), self.boundary.ravel()[border], constraints, residues, 2, colour,
                                   node_label=corner_name)
+        known = closed_form_extremes(self.boundary)
+        if known is not None:  # the L1 distance transforms: O(n^2), no search
+            nodes = [np.empty(w * w, dtype=np.int64) for _ in range(2)]
+            for target, grid in zip(nodes, known):
+                target[node] = grid.ravel()
+            self._model.set_extremes(*nodes)
         least, greatest = self._model.extremes()  # no filling of this boundary: ValueError naming the corner
         self._node = node
         self._least = self._grid(least)
@@ -265,10 +273,14 @@ class SquareIceRegion(Region):
     def is_domain_wall(self) -> bool:
         return bool(np.array_equal(self.boundary, cv.domain_wall_boundary(self.n)))
 
-    def count(self) -> int:
-        """Number of configurations: the ASM number for the domain wall, else a row-transfer count."""
+    def count(self, *, max_digits: Optional[int] = DEFAULT_MAX_DIGITS) -> int:
+        """Number of configurations: the ASM number for the domain wall, else a row-transfer count.
+
+        Refuses (ValueError) an ASM number of more than ``max_digits`` decimal
+        digits (default a million; None: no cap).
+        """
         if self.is_domain_wall:
-            return asm_count(self.n)
+            return asm_count(self.n, max_digits=max_digits)
         if self.n > 14:
             raise ValueError("counting configurations of a general boundary uses a row transfer, practical to n = 14")
         return int(row_transfer(self.boundary))

@@ -11,7 +11,7 @@ well under a second here.
 from __future__ import annotations
 
 import math
-from typing import Iterator, List
+from typing import Iterator, List, Optional
 
 import numpy as np
 
@@ -88,17 +88,23 @@ def _det_mod(matrix: np.ndarray, p: int) -> int:
     return det % p
 
 
-def integer_determinant(matrix: np.ndarray) -> int:
+def integer_determinant(matrix: np.ndarray, *, budget: Optional[float] = None) -> int:
     """Exact determinant of a square integer matrix (a Python int).
 
     Suited to sparse matrices whose rows reach a limited band of columns,
     such as Kasteleyn matrices of lattice regions ordered row by row.
+    ``budget``: refuse (ValueError, with the estimate) when the estimated
+    time exceeds this many seconds (see :mod:`frostline.exact.budget`); None
+    runs whatever it costs. Ctrl-C stops a run.
 
     Raises
     ------
     ValueError
-        If the matrix is not square or holds non-integers.
+        If the matrix is not square or holds non-integers, or the cost exceeds ``budget``.
     """
+    from .budget import check_budget_argument, check_seconds, determinant_seconds
+
+    budget = check_budget_argument(budget)
     a = np.asarray(matrix)
     if a.ndim != 2 or a.shape[0] != a.shape[1]:
         raise ValueError(f"need a square matrix, got shape {a.shape}")
@@ -116,6 +122,14 @@ def integer_determinant(matrix: np.ndarray) -> int:
     if np.any(norms == 0):
         return 0
     bound_bits = float(np.log2(norms).sum()) + 2
+    if budget is not None:
+        nonzero = a != 0
+        first = np.argmax(nonzero, axis=1)
+        last = n - 1 - np.argmax(nonzero[:, ::-1], axis=1)
+        bandwidth = int((last - first).max()) + 1
+        seconds = determinant_seconds(n, bandwidth, bound_bits)
+        check_seconds(seconds, budget, f"the exact determinant of this {n}x{n} matrix",
+                      f"about {int(bound_bits / 31) + 1} primes x {n} pivots, rows reaching {bandwidth} columns")
     residues: List[int] = []
     moduli: List[int] = []
     bits = 0.0
