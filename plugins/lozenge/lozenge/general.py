@@ -183,15 +183,41 @@ class LozengeRegion(LozengeTiles, Region):
         return self._q_exact ** cubes
 
     def dimer_system(self) -> dict:
-        """Kasteleyn (plain adjacency) matrix of the triangles (uniform weights only)."""
+        """Kasteleyn matrix of the triangles: adjacency, with q ** volume written as edge weights.
+
+        q ** volume is an edge weighting (docs/references.md, "q ** volume as
+        edge weights"): the lozenge of type 0 at (x, y) gets weight
+        q ** ((y - x) / 2), the others 1. A cube added turns the type-0
+        lozenge of a hexagon into the one on its opposite side, which raises
+        the sum of (y - x) / 2 by exactly one, so over every tiling that sum is
+        the volume plus a constant of the region (:meth:`volume_offset`). The
+        matrix therefore weighs each tiling by q ** volume times q ** offset:
+        the same probabilities, and log Z shifted by offset * log q.
+        """
+        system = lozenge_dimer_system(self.triangles)
         if self.q != 1.0:
-            raise ValueError("exact local statistics need edge weights; q ** volume is not one (use q = 1)")
-        return lozenge_dimer_system(self.triangles)
+            system["matrix"][system["rows"], system["cols"]] = self.q ** volume_exponents(system["tiles"])
+        return system
 
     def kasteleyn_real(self) -> np.ndarray:
+        """The real Kasteleyn matrix (rows up, columns down triangles), with the q ** volume edge weights."""
         if self.q != 1.0:
-            raise ValueError("q ** volume is not an edge weighting; use q = 1")
+            return self.dimer_system()["matrix"]
         return self.adjacency_matrix().astype(float)
+
+    def volume_offset(self) -> float:
+        """The constant C with sum over type-0 lozenges of (y - x) / 2 = volume + C on every tiling.
+
+        The volume counts cubes above the least height function, so C is that
+        sum on the least tiling. On the a x b x c box it is ab(b - a) / 4 (in
+        the coordinates of ``hexagon_region``; docs/references.md).
+        """
+        least = self._heights_from_nodes(self._model.extremes()[0])
+        return float(volume_exponents(self.tiles_from_heights(least)).sum())
+
+    def kasteleyn_log_offset(self) -> float:
+        """log |det K| - log Z: the offset times log q (0 for q = 1); see :meth:`dimer_system`."""
+        return 0.0 if self.q == 1.0 else self.volume_offset() * float(np.log(self.q))
 
     @property
     def scale(self) -> float:
@@ -268,18 +294,30 @@ class LozengeRegion(LozengeTiles, Region):
         return a
 
     def partition_function(self) -> Any:
-        """Sum of q ** volume over tilings: the count when q = 1, otherwise exact by enumeration.
+        """Sum of q ** volume over tilings (volume: cubes above the least tiling).
 
-        Enumeration is for small regions (at most 200,000 tilings); larger
-        weighted regions raise ValueError saying so.
+        The count when q = 1; otherwise exact (a ``fractions.Fraction``, q at its
+        exact binary value) by enumeration for small regions (at most 200,000
+        tilings), and beyond that a float (an ``mpmath.mpf`` past the float
+        range) from the Kasteleyn determinant with the q ** volume edge
+        weights, whose logarithm carries a checked bound of 1e-9
+        (:func:`frostline.exact.log_partition_function`).
         """
         if self.q == 1.0:
             return self.count()
         from fractions import Fraction
 
-        from frostline.exact import enumerate_heights
+        from frostline.exact import EnumerationTooLarge, enumerate_heights, log_partition_function
 
-        states = enumerate_heights(self._model)
+        try:
+            states = enumerate_heights(self._model)
+        except EnumerationTooLarge:
+            log_z = log_partition_function(self)
+            if log_z < 700:
+                return float(np.exp(log_z))
+            import mpmath
+
+            return mpmath.exp(log_z)
         n = self._model.n_sites
         least = self._model.extremes()[0][:n].astype(np.int64)
         volumes = (states[:, :n].astype(np.int64) - least).sum(axis=1) // 3
@@ -288,6 +326,12 @@ class LozengeRegion(LozengeTiles, Region):
 
     def __repr__(self) -> str:
         return f"LozengeRegion({self._description}, lozenges={self.n_lozenges}, q={self.q!r})"
+
+
+def volume_exponents(tiles: np.ndarray) -> np.ndarray:
+    """(y - x) / 2 for each lozenge (x, y, 0) of type 0, 0 for the other types (float)."""
+    t = np.asarray(tiles, dtype=np.int64).reshape(-1, 3)
+    return np.where(t[:, 2] == 0, (t[:, 1] - t[:, 0]) / 2.0, 0.0)
 
 
 def _as_triangles(triangles: Iterable) -> np.ndarray:

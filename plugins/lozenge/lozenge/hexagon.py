@@ -90,20 +90,22 @@ class HexagonRegion(LozengeTiles, Region):
         """q ** volume, exactly (q at its exact value)."""
         return self._q_exact ** int(np.asarray(heights).sum())
 
-    def dimer_system(self) -> dict:
-        """Kasteleyn matrix of the hexagon's triangles (uniform weights only)."""
-        if self.q != 1.0:
-            raise ValueError("exact local statistics need edge weights; q ** volume is not one (use q = 1)")
+    def _general(self):
+        """The same hexagon as a general region (same q ** volume measure), for its Kasteleyn matrix."""
         from .shapes import hexagon_region
 
-        return hexagon_region(self.a, self.b, self.c).dimer_system()
+        return hexagon_region(self.a, self.b, self.c, q=self.q)
+
+    def dimer_system(self) -> dict:
+        """Kasteleyn matrix of the hexagon's triangles, q ** volume as edge weights (see LozengeRegion)."""
+        return self._general().dimer_system()
 
     def kasteleyn_real(self) -> np.ndarray:
-        if self.q != 1.0:
-            raise ValueError("q ** volume is not an edge weighting; use q = 1 (or partition_function())")
-        from .shapes import hexagon_region
+        return self._general().kasteleyn_real()
 
-        return hexagon_region(self.a, self.b, self.c).kasteleyn_real()
+    def kasteleyn_log_offset(self) -> float:
+        """log |det K| - log Z = (ab(b - a) / 4) log q; see LozengeRegion.volume_offset."""
+        return 0.0 if self.q == 1.0 else self.a * self.b * (self.b - self.a) / 4.0 * float(np.log(self.q))
 
     @property
     def scale(self) -> float:

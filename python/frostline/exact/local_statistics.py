@@ -65,7 +65,9 @@ def log_partition_function(region: Any, tolerance: float = 1e-9) -> float:
 
     From a real Kasteleyn matrix (``region.kasteleyn_real()``: the plain
     adjacency for lozenges, the odd-column signing for dominoes, times edge
-    weights). The value carries a checked error bound below ``tolerance``
+    weights). When the plugin's edge weights equal its measure up to a constant
+    factor (q ** volume on lozenges), ``region.kasteleyn_log_offset()`` gives
+    log of that factor and is subtracted. The value carries a checked error bound below ``tolerance``
     (absolute, in natural-log units) or ValueError is raised; see
     :func:`log_partition_function_bound` for the bound and the route taken.
     """
@@ -75,4 +77,9 @@ def log_partition_function(region: Any, tolerance: float = 1e-9) -> float:
 def log_partition_function_bound(region: Any, tolerance: float = 1e-9) -> CertifiedLog:
     """``log Z`` of a dimer region with its error bound and method (:mod:`frostline.exact.certified`)."""
     k = region.kasteleyn_real()
-    return certified_log_abs_det(k, tolerance)
+    certified = certified_log_abs_det(k, tolerance)
+    # a plugin whose Kasteleyn weights equal its measure only up to a constant factor says so here
+    offset = getattr(region, "kasteleyn_log_offset", None)
+    if offset is None:
+        return certified
+    return CertifiedLog(certified.value - float(offset()), certified.error, certified.method)
