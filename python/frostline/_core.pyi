@@ -67,6 +67,10 @@ class lozenge:
                   time: int = ...) -> ForwardChain: ...
     @staticmethod
     def box_cells(a: int, b: int, c: int, padded: IntArray) -> IntArray: ...
+    @staticmethod
+    def point_sample(rows: int, columns: int, shift: int, runs: IntArray, least: IntArray, greatest: IntArray,
+                     key0: int, key1: int, check_order: bool = ..., max_start_time: int = ...,
+                     progress: ProgressHook = ..., threads: int = ...) -> Tuple[IntArray, dict]: ...
 
 class domino:
     class CornerLayout:

@@ -20,9 +20,11 @@ from typing import Any, Dict, Iterable, Optional, Tuple
 
 import numpy as np
 
+from frostline import _core
 from frostline._limits import check_memory
 from frostline.exact.budget import DEFAULT_BUDGET_SECONDS
 from frostline.height_walk import integrate, walk_boundary
+from frostline.methods import ExactMethod, RunOptions
 from frostline.model import HeightModel
 from frostline.region import Region
 
@@ -96,7 +98,45 @@ class LozengeRegion(LozengeTiles, Region):
         self._crop = (slice(pts[:, 0].min(), pts[:, 0].max() + 1), slice(pts[:, 1].min(), pts[:, 1].max() + 1))
         self.origin = (int(pts[:, 0].min() + ox), int(pts[:, 1].min() + oy))
         self.vertex_mask = in_region[self._crop].copy()
+        self._point_parts: Optional[tuple] = None
         self._model.extremes()  # decides tileability now, with the error naming the place
+
+    # ----- kernels -----------------------------------------------------------------
+    def exact_methods(self) -> Dict[str, ExactMethod]:
+        """``"cftp"``: the lattice-point vector kernel (uniform weights; the generic engine for q != 1);
+        ``"generic"``: the reference engine (the same sample)."""
+        generic = self.generic_method()
+        if self.q != 1.0:
+            return {"cftp": generic, "generic": generic}
+        return {"cftp": ExactMethod("cftp", "lattice points", self._point_sample), "generic": generic}
+
+    def _point_layout(self):
+        """(rows, columns, shift, runs, least grid, greatest grid) of the vector kernel, built once."""
+        if self._point_parts is None:
+            interior = self._node >= 0
+            interior &= self._node < self._model.n_sites
+            runs = []
+            for row in range(interior.shape[0]):
+                cols = np.flatnonzero(interior[row])
+                if cols.size:
+                    breaks = np.flatnonzero(np.diff(cols) > 1)
+                    starts = np.concatenate([[0], breaks + 1])
+                    ends = np.concatenate([breaks, [cols.size - 1]])
+                    runs += [(row, cols[a], cols[b]) for a, b in zip(starts, ends)]
+            least, greatest = self._model.extremes()
+            ox, oy = self.grid.origin
+            self._point_parts = (interior.shape[0], interior.shape[1], (ox - oy) % 3,
+                                 np.array(runs, dtype=np.int32).reshape(-1, 3),
+                                 self._grid_heights(least), self._grid_heights(greatest))
+        return self._point_parts
+
+    def _point_sample(self, key, options: RunOptions):
+        rows, columns, shift, runs, least, greatest = self._point_layout()
+        grid, report = _core.lozenge.point_sample(rows, columns, shift, runs, least.ravel(), greatest.ravel(),
+                                                  key[0], key[1], options.check_order, options.max_start_time,
+                                                  options.progress, options.threads)
+        heights = np.asarray(grid, dtype=np.int32).reshape(rows, columns)
+        return np.where(self.vertex_mask, heights[self._crop], 0).astype(np.int32), report
 
     # ----- conversions -----------------------------------------------------------
     def _grid_heights(self, node_heights: np.ndarray) -> np.ndarray:

@@ -22,6 +22,26 @@ inline std::uint64_t vector_mix(std::uint64_t z) {
     return z ^ (z >> 31);
 }
 
+// The uniform index floor(bits * count / 2^64), count < 2^32.
+inline std::uint64_t vector_index(std::uint64_t bits, std::uint64_t count) {
+#if !defined(__AVX2__) && defined(__SIZEOF_INT128__)
+    return static_cast<std::uint64_t>((static_cast<unsigned __int128>(bits) * count) >> 64);
+#else
+    const std::uint64_t low = (bits & 0xffffffffULL) * count;
+    const std::uint64_t high = (bits >> 32) * count;
+    return (high + (low >> 32)) >> 32;
+#endif
+}
+
+// Uniform on {lo, lo + 3, ..., hi}, as uniform_rule(3).draw. floor(g / 3) =
+// (g * 0xAAAAAAAB) >> 33 exactly for every 32-bit g (0xAAAAAAAB = (2^33 + 1) / 3;
+// common practice for division by a constant): a multiply vector units have.
+inline std::int32_t vector_draw_step3(std::int32_t lo, std::int32_t hi, std::uint64_t bits) {
+    const std::uint64_t gap = static_cast<std::uint32_t>(hi - lo);
+    const std::uint64_t count = ((gap * 0xAAAAAAABULL) >> 33) + 1;
+    return lo + static_cast<std::int32_t>(vector_index(bits, count) * 3);
+}
+
 // Uniform on {lo, lo + 2^shift, ..., hi}, as uniform_rule(2^shift).draw.
 inline std::int32_t vector_draw(std::int32_t lo, std::int32_t hi, std::uint64_t bits, int shift) {
     const std::uint64_t count = (static_cast<std::uint32_t>(hi - lo) >> shift) + std::uint64_t(1);

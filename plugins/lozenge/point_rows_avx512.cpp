@@ -1,0 +1,9 @@
+// The lattice-point row kernel of general lozenge regions, compiled for the avx512 level (flags set in CMakeLists.txt).
+#include <cstdint>
+
+#include "frostline/grid_run.hpp"
+
+namespace frostline::lozenge::simd_avx512 {
+#include "frostline/vector/draws.inl"
+#include "point_rows.inl"
+}  // namespace frostline::lozenge::simd_avx512
