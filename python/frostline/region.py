@@ -280,9 +280,19 @@ class Region(abc.ABC):
             raise ValueError("threads must be at least 1")
         resolve(self.exact_methods(), method, self.auto_method(), "exact methods",
                 self.unavailable_methods())  # fail before spawning
-        # spawn from a copy rebuilt from the record: spawning mutates a SeedSequence, and the
-        # same seed must give the same ensemble every time it is passed
-        children = seed_record(normalise_seed(seed)).sequence().spawn(k)
+        # the list of samples is the big allocation: estimate it before anything runs
+        from ._limits import check_memory
+
+        cells = int(np.asarray(self.extreme_heights()[0]).size)
+        check_memory(k * (8 * cells + 2048), f"a list of {k} samples of {cells} heights each")
+        # children are made one at a time, as they are submitted, identical to
+        # SeedSequence.spawn(k) on a copy rebuilt from the record (spawning mutates a
+        # SeedSequence, and the same seed must give the same ensemble every time)
+        root = seed_record(normalise_seed(seed)).sequence()
+
+        def child(i: int) -> np.random.SeedSequence:
+            return np.random.SeedSequence(root.entropy, spawn_key=(*root.spawn_key, i), pool_size=root.pool_size)
+
         stop = threading.Event()
 
         def hook(*_: Any) -> None:
@@ -292,13 +302,22 @@ class Region(abc.ABC):
         def one(child: np.random.SeedSequence) -> Sample:
             return self.sample(child, method=method, max_start_time=max_start_time, progress=hook)
 
-        pool = ThreadPoolExecutor(max_workers=min(threads, max(k, 1)))
+        workers = min(threads, max(k, 1))
+        pool = ThreadPoolExecutor(max_workers=workers)
         futures: list = []
         try:
-            futures = [pool.submit(one, c) for c in children]
-            pending = set(futures)
-            while pending:
-                _, pending = wait(pending, timeout=0.2)
+            # a bounded number of members in flight: futures are submitted as others finish
+            submitted = 0
+            pending: set = set()
+            while submitted < k or pending:
+                while submitted < k and len(pending) < 4 * workers:
+                    future = pool.submit(one, child(submitted))
+                    futures.append(future)
+                    pending.add(future)
+                    submitted += 1
+                done, pending = wait(pending, timeout=0.2, return_when="FIRST_COMPLETED")
+                for future in done:
+                    future.result()  # a member that failed stops the ensemble now
             return [f.result() for f in futures]
         except BaseException:
             stop.set()

@@ -48,6 +48,11 @@ def as_mask(mask: Any) -> np.ndarray:
     return m
 
 
+#: memory a region takes per corner of its grid (masks, heights, extremes, kernel layout): the estimate
+#: checked before anything proportional to the grid is allocated
+BYTES_PER_CORNER = 200
+
+
 class DominoRegion(Region):
     """Domino tilings of a mask of cells, optionally with a weight per domino position."""
 
@@ -58,7 +63,7 @@ class DominoRegion(Region):
                  description: Optional[Dict[str, Any]] = None, known_tileable: bool = False) -> None:
         self.mask = as_mask(mask)
         R, C = self.mask.shape
-        check_memory(200 * (R + 1) * (C + 1), f"a {R}x{C} mask")
+        check_memory(BYTES_PER_CORNER * (R + 1) * (C + 1), f"a {R}x{C} mask")
         self.weights: Optional[Weights] = check_weights(horizontal, vertical, (R, C))
         if isinstance(class_offset, bool) or not isinstance(class_offset, numbers.Integral):
             raise TypeError("class_offset must be an int")

@@ -19,9 +19,12 @@ from typing import List, Tuple
 
 import numpy as np
 
+from frostline._limits import check_memory
 from frostline.height_walk import refuse_holes
 
 MARGIN = 2
+#: memory per point of the bounding-box grid (masks, node ids, heights, extremes, kernel layout)
+GRID_BYTES_PER_POINT = 160
 #: partner down triangle of U(x, y) across edge type t: D(x + dx, y + dy)
 PARTNER = ((0, 0), (0, -1), (-1, 0))
 #: edge endpoints relative to (x, y): (from, to)
@@ -54,6 +57,9 @@ class TriangleGrid:
         lo = t[:, :2].min(axis=0) - MARGIN
         hi = t[:, :2].max(axis=0) + MARGIN + 1
         shape = tuple(int(v) for v in (hi - lo + 1))
+        # every array of the region lives on this bounding-box grid: check it before any is made
+        check_memory(GRID_BYTES_PER_POINT * shape[0] * shape[1],
+                     f"the {shape[0]}x{shape[1]} grid around these triangles (their bounding box)")
         up = np.zeros(shape, bool)
         down = np.zeros(shape, bool)
         p, q = t[:, 0] - lo[0], t[:, 1] - lo[1]

@@ -6,6 +6,8 @@ from typing import Any, Dict, Sequence, Tuple, Union
 
 import numpy as np
 
+from .._limits import check_memory
+
 Samples = Union[Any, Sequence[Any]]  # one frostline.Sample or several
 
 
@@ -93,6 +95,8 @@ def density_grid(samples: Samples, bin_size: float, smoothing: float = 0.0) -> D
     nx = max(1, int(np.ceil((hi[0] - lo[0]) / bin_size)))
     ny = max(1, int(np.ceil((hi[1] - lo[1]) / bin_size)))
     names = samples[0].region.tile_classes
+    # the tally, its smoothing and the fractions: about four float arrays of classes x bins
+    check_memory(4 * 8 * len(names) * nx * ny, f"a {nx}x{ny} density grid (bin_size {bin_size:g})")
     tally = np.zeros((len(names), nx, ny))
     for centres, classes in data:
         i = np.clip(((centres[:, 0] - lo[0]) / bin_size).astype(int), 0, nx - 1)
