@@ -351,6 +351,16 @@ class Region(abc.ABC):
         except ValueError as exc:
             raise ValueError(f"start is not a configuration of this region: {exc}") from None
 
+    def height_field(self, heights: np.ndarray) -> np.ndarray:
+        """Heights in the dimer normalisation (float, NaN at entries outside the region).
+
+        The normalisation in which the Gaussian free field limit has variance
+        (1 / pi^2) log |x - y| for differences: the height changes by 1 around a
+        vertex of the dimer graph (docs/references.md, section 4). Plugins whose
+        lattice has one override this; the default raises ValueError.
+        """
+        raise ValueError(f"the {self.lattice} lattice declares no height field in the dimer normalisation")
+
     def partition_function(self) -> Any:
         """Weighted sum over configurations; the unweighted count by default."""
         return self.count()

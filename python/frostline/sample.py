@@ -91,6 +91,17 @@ class Sample:
             self._cache["tiles"] = self.region.tiles_from_heights(self.heights)
         return self._cache["tiles"]
 
+    def height_field(self) -> np.ndarray:
+        """Heights in the dimer normalisation, one convention for every lattice (float; NaN outside).
+
+        The plugin's :meth:`frostline.Region.height_field` says which points
+        and which normalisation (for lozenges the number-of-cubes height on
+        lattice points, for dominoes Thurston's height / 4 on corners).
+        """
+        if "height_field" not in self._cache:
+            self._cache["height_field"] = self.region.height_field(self.heights)
+        return self._cache["height_field"]
+
     def plot(self, ax: Any = None, **style: Any) -> Any:
         """Draw the configuration with matplotlib; returns the Axes."""
         return self.region.draw(self, ax=ax, **style)

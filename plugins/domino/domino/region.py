@@ -252,6 +252,11 @@ class DominoRegion(Region):
             heights[r, cols] = heights[r - 1, cols] + step[r - 1, cols]
         return heights.astype(np.int32)
 
+    def height_field(self, heights: np.ndarray) -> np.ndarray:
+        """Thurston's height / 4 on the corners (NaN outside the region): it changes by 1 around a vertex."""
+        h = np.asarray(self.check_heights(heights), dtype=float) / 4.0
+        return np.where(self.corner_mask, h, np.nan)
+
     def classify(self, tiles: np.ndarray) -> np.ndarray:
         """Class of each domino: 0 north, 1 south, 2 east, 3 west (see the module docstring)."""
         t = np.asarray(tiles).reshape(-1, 2, 2)

@@ -245,6 +245,15 @@ class LozengeRegion(LozengeTiles, Region):
             return self.dimer_system()["matrix"]
         return self.adjacency_matrix().astype(float)
 
+    def height_field(self, heights: np.ndarray) -> np.ndarray:
+        """The number-of-cubes height on the region's lattice points: heights / 3 (NaN outside the region).
+
+        Lattice-point heights step 3 per cube (+1 along an uncrossed edge, -2
+        across a lozenge), so heights / 3 is the dimer normalisation.
+        """
+        h = np.asarray(self.check_heights(heights), dtype=float) / 3.0
+        return np.where(self.vertex_mask, h, np.nan)
+
     def volume_offset(self) -> float:
         """The constant C with sum over type-0 lozenges of (y - x) / 2 = volume + C on every tiling.
 

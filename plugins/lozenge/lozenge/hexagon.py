@@ -103,6 +103,13 @@ class HexagonRegion(LozengeTiles, Region):
     def kasteleyn_real(self) -> np.ndarray:
         return self._general().kasteleyn_real()
 
+    def height_field(self, heights: np.ndarray) -> np.ndarray:
+        """The number-of-cubes height on the lattice points of the hexagon (the layout of
+        ``hexagon_region(a, b, c)``), from the plane partition: a different object from ``heights``."""
+        general = self._general()
+        tiles = self.tiles_from_heights(heights)
+        return general.height_field(general.heights_from_tiles(tiles))
+
     def kasteleyn_log_offset(self) -> float:
         """log |det K| - log Z = (ab(b - a) / 4) log q; see LozengeRegion.volume_offset."""
         return 0.0 if self.q == 1.0 else self.a * self.b * (self.b - self.a) / 4.0 * float(np.log(self.q))

@@ -169,6 +169,16 @@ class SquareIceRegion(Region):
     def heights_from_model(self, node_heights: np.ndarray) -> np.ndarray:
         return self._grid(node_heights)
 
+    def height_field(self, heights: np.ndarray) -> np.ndarray:
+        """Corner heights / 2 (float): they change by 1/2 along every edge of the corner grid.
+
+        The normalisation of the free-fermion point Delta = 0, where square ice
+        is a dimer model; the Gaussian free field amplitude of the dimer
+        normalisation (docs/references.md, section 4) is not claimed for other
+        Delta (uniform alternating sign matrices have Delta = 1/2).
+        """
+        return np.asarray(self.check_heights(heights), dtype=float) / 2.0
+
     def configuration_weight(self, heights: np.ndarray):
         """Product of vertex weights (exact Fractions of a, b, c)."""
         types = cv.vertex_types_from_heights(heights)

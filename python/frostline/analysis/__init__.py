@@ -6,7 +6,12 @@ Works on arrays and on what plugins declare (``tile_classes``, ``classify``,
 from .boundary import frozen_boundary, frozen_mask, near_edge
 from .curves import conic_points, curve_distance
 from .densities import DensityGrid, density_grid, local_densities
+from .exact_comparison import ExactComparison, compare_with_exact
+from .fluctuations import POINTWISE_SLOPE, TWO_POINT_SLOPE, Fluctuations, height_fluctuations, variance_growth
 from .heights import height_statistics, variance_at
+from .tracy_widom import tracy_widom_cdf, tracy_widom_moments
 
-__all__ = ["DensityGrid", "conic_points", "curve_distance", "density_grid", "frozen_boundary", "frozen_mask",
-           "height_statistics", "local_densities", "near_edge", "variance_at"]
+__all__ = ["POINTWISE_SLOPE", "TWO_POINT_SLOPE", "DensityGrid", "ExactComparison", "Fluctuations",
+           "compare_with_exact", "conic_points", "curve_distance", "density_grid", "frozen_boundary", "frozen_mask",
+           "height_fluctuations", "height_statistics", "local_densities", "near_edge", "tracy_widom_cdf",
+           "tracy_widom_moments", "variance_at", "variance_growth"]
