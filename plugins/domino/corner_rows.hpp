@@ -16,27 +16,14 @@
 
 namespace frostline::domino {
 
-#define FROSTLINE_CORNER_ROWS_DECLARE(level)                                                                  \
-    namespace simd_##level {                                                                                  \
-    void uniform_runs(const corner_run* runs, std::int64_t n_runs, std::int64_t w, std::int32_t* top,       \
-                      std::int32_t* bottom, std::uint64_t base, std::int32_t parity);                         \
-    }
-FROSTLINE_CORNER_ROWS_DECLARE(scalar)
-FROSTLINE_CORNER_ROWS_DECLARE(avx2)
-FROSTLINE_CORNER_ROWS_DECLARE(avx512)
-#undef FROSTLINE_CORNER_ROWS_DECLARE
+FROSTLINE_DECLARE_LEVELS(void, uniform_runs,
+                         (const corner_run* runs, std::int64_t n_runs, std::int64_t w, std::int32_t* top,
+                          std::int32_t* bottom, std::uint64_t base, std::int32_t parity))
 
 using corner_rows_function = void (*)(const corner_run*, std::int64_t, std::int64_t, std::int32_t*, std::int32_t*,
                                       std::uint64_t, std::int32_t);
 
-inline corner_rows_function corner_rows_for(simd_level level) {
-#if defined(FROSTLINE_X86_LEVELS)
-    if (level == simd_level::avx512) return &simd_avx512::uniform_runs;
-    if (level == simd_level::avx2) return &simd_avx2::uniform_runs;
-#endif
-    (void)level;
-    return &simd_scalar::uniform_runs;
-}
+inline corner_rows_function corner_rows_for(simd_level level) { return FROSTLINE_PICK_LEVEL(level, uniform_runs); }
 
 // Uniform domino sweeps on the split grid of `layout`'s corner array.
 class corner_split_sweeper {
@@ -46,16 +33,7 @@ public:
                          std::shared_ptr<thread_team> team = nullptr, simd_level level = simd_choice())
         : layout_(layout), grid_(layout.rows() + 1, layout.columns() + 1), key_(key), stream_(s),
           team_(std::move(team)), rows_(corner_rows_for(level)) {
-        const auto& runs = layout_.runs();
-        const int parts = team_ ? team_->size() : 1;
-        cuts_.push_back(0);
-        for (int part = 1; part < parts; ++part) {  // first run whose first site reaches the part's share
-            const std::int64_t share = layout_.n_sites() * part / parts;
-            auto at = std::lower_bound(runs.begin(), runs.end(), share,
-                                       [](const corner_run& r, std::int64_t v) { return r.first_site < v; });
-            cuts_.push_back(static_cast<std::int64_t>(at - runs.begin()));
-        }
-        cuts_.push_back(static_cast<std::int64_t>(runs.size()));
+        cuts_ = balanced_cuts(layout_.runs(), layout_.n_sites(), team_ ? team_->size() : 1);
     }
 
     const split_grid& grid() const { return grid_; }
@@ -67,17 +45,10 @@ private:
     void run(std::int32_t* top, std::int32_t* bottom, std::int64_t time) const {
         const std::uint64_t base = sweep_base(key_, stream_, time);
         const auto& runs = layout_.runs();
-        for (std::int32_t parity = 0; parity < 2; ++parity) {
-            if (!team_) {
-                rows_(runs.data(), static_cast<std::int64_t>(runs.size()), grid_.half_width(), top, bottom, base,
-                      parity);
-                continue;
-            }
-            team_->run([&](int part) {
-                const std::int64_t first = cuts_[part], last = cuts_[part + 1];
+        for (std::int32_t parity = 0; parity < 2; ++parity)
+            for_cut_blocks(team_, cuts_, [&](std::int64_t first, std::int64_t last) {
                 rows_(runs.data() + first, last - first, grid_.half_width(), top, bottom, base, parity);
             });
-        }
     }
 
     const corner_layout& layout_;

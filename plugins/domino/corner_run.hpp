@@ -1,15 +1,10 @@
-// A run of free corners in one row of the domino corner grid (a plain
-// aggregate, shared by the scalar kernel and the vector row kernels).
+// A run of free corners in one row of the domino corner grid: the engine's
+// grid_run (row, first and last column, first site id).
 #pragma once
-#include <cstdint>
+#include "frostline/grid_run.hpp"
 
 namespace frostline::domino {
 
-struct corner_run {
-    std::int32_t row;
-    std::int32_t first;  // columns first..last (inclusive) are free corners
-    std::int32_t last;
-    std::int64_t first_site;
-};
+using corner_run = grid_run;
 
 }  // namespace frostline::domino

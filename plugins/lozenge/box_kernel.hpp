@@ -88,15 +88,10 @@ private:
         const std::uint64_t base = sweep_base(key_, stream_, time);
         for (std::int32_t parity = 0; parity < 2; ++parity) {
             if constexpr (std::is_same_v<Rule, uniform_rule>) {
-                if (team_) {
-                    team_->run([&](int part) {
-                        const auto [first, last] = team_->block(layout_.rows(), part);
-                        rows_(layout_.geometry(), top, bottom, base, parity, static_cast<std::int32_t>(first),
-                              static_cast<std::int32_t>(last));
-                    });
-                } else {
-                    rows_(layout_.geometry(), top, bottom, base, parity, 0, layout_.rows());
-                }
+                for_blocks(team_, layout_.rows(), [&](std::int64_t first, std::int64_t last) {
+                    rows_(layout_.geometry(), top, bottom, base, parity, static_cast<std::int32_t>(first),
+                          static_cast<std::int32_t>(last));
+                });
             } else {
                 for (std::int32_t r = 0; r < layout_.rows(); ++r) {
                     scalar_row(top, r, parity, base);

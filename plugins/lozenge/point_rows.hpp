@@ -17,27 +17,14 @@
 
 namespace frostline::lozenge {
 
-#define FROSTLINE_POINT_ROWS_DECLARE(level)                                                                    \
-    namespace simd_##level {                                                                                   \
-    void uniform_runs(const grid_run* runs, std::int64_t n_runs, std::int64_t w, std::int32_t shift,           \
-                      std::int32_t* top, std::int32_t* bottom, std::uint64_t base, std::int32_t k);            \
-    }
-FROSTLINE_POINT_ROWS_DECLARE(scalar)
-FROSTLINE_POINT_ROWS_DECLARE(avx2)
-FROSTLINE_POINT_ROWS_DECLARE(avx512)
-#undef FROSTLINE_POINT_ROWS_DECLARE
+FROSTLINE_DECLARE_LEVELS(void, uniform_runs,
+                         (const grid_run* runs, std::int64_t n_runs, std::int64_t w, std::int32_t shift,
+                          std::int32_t* top, std::int32_t* bottom, std::uint64_t base, std::int32_t k))
 
 using point_rows_function = void (*)(const grid_run*, std::int64_t, std::int64_t, std::int32_t, std::int32_t*,
                                      std::int32_t*, std::uint64_t, std::int32_t);
 
-inline point_rows_function point_rows_for(simd_level level) {
-#if defined(FROSTLINE_X86_LEVELS)
-    if (level == simd_level::avx512) return &simd_avx512::uniform_runs;
-    if (level == simd_level::avx2) return &simd_avx2::uniform_runs;
-#endif
-    (void)level;
-    return &simd_scalar::uniform_runs;
-}
+inline point_rows_function point_rows_for(simd_level level) { return FROSTLINE_PICK_LEVEL(level, uniform_runs); }
 
 // The free points of a region as runs of a rows x columns grid, checked.
 class point_layout {
@@ -72,16 +59,7 @@ public:
     point_sweeper(const point_layout& layout, random_key key, stream s, std::shared_ptr<thread_team> team = nullptr,
                   simd_level level = simd_choice())
         : layout_(layout), key_(key), stream_(s), team_(std::move(team)), rows_(point_rows_for(level)) {
-        const auto& runs = layout_.runs();
-        const int parts = team_ ? team_->size() : 1;
-        cuts_.push_back(0);
-        for (int part = 1; part < parts; ++part) {  // blocks of runs of about equal site count
-            const std::int64_t share = layout_.n_sites() * part / parts;
-            auto at = std::lower_bound(runs.begin(), runs.end(), share,
-                                       [](const grid_run& r, std::int64_t v) { return r.first_site < v; });
-            cuts_.push_back(static_cast<std::int64_t>(at - runs.begin()));
-        }
-        cuts_.push_back(static_cast<std::int64_t>(runs.size()));
+        cuts_ = balanced_cuts(layout_.runs(), layout_.n_sites(), team_ ? team_->size() : 1);
     }
 
     std::int64_t n_sites() const { return layout_.n_sites(); }
@@ -93,16 +71,10 @@ private:
         const std::uint64_t base = sweep_base(key_, stream_, time);
         const auto& runs = layout_.runs();
         const std::int64_t w = layout_.grid().half_width();
-        for (std::int32_t k = 0; k < 3; ++k) {
-            if (!team_) {
-                rows_(runs.data(), static_cast<std::int64_t>(runs.size()), w, layout_.shift(), top, bottom, base, k);
-                continue;
-            }
-            team_->run([&](int part) {
-                const std::int64_t first = cuts_[part], last = cuts_[part + 1];
+        for (std::int32_t k = 0; k < 3; ++k)
+            for_cut_blocks(team_, cuts_, [&](std::int64_t first, std::int64_t last) {
                 rows_(runs.data() + first, last - first, w, layout_.shift(), top, bottom, base, k);
             });
-        }
     }
 
     const point_layout& layout_;

@@ -14,27 +14,14 @@
 
 namespace frostline::square_ice {
 
-#define FROSTLINE_ICE_ROWS_DECLARE(level)                                                                      \
-    namespace simd_##level {                                                                                   \
-    void uniform_rows(std::int32_t n, std::int64_t w, std::int32_t* top, std::int32_t* bottom, std::uint64_t base, \
-                      std::int32_t parity, std::int32_t first_row, std::int32_t last_row);                     \
-    }
-FROSTLINE_ICE_ROWS_DECLARE(scalar)
-FROSTLINE_ICE_ROWS_DECLARE(avx2)
-FROSTLINE_ICE_ROWS_DECLARE(avx512)
-#undef FROSTLINE_ICE_ROWS_DECLARE
+FROSTLINE_DECLARE_LEVELS(void, uniform_rows,
+                         (std::int32_t n, std::int64_t w, std::int32_t* top, std::int32_t* bottom, std::uint64_t base,
+                          std::int32_t parity, std::int32_t first_row, std::int32_t last_row))
 
 using ice_rows_function = void (*)(std::int32_t, std::int64_t, std::int32_t*, std::int32_t*, std::uint64_t,
                                    std::int32_t, std::int32_t, std::int32_t);
 
-inline ice_rows_function ice_rows_for(simd_level level) {
-#if defined(FROSTLINE_X86_LEVELS)
-    if (level == simd_level::avx512) return &simd_avx512::uniform_rows;
-    if (level == simd_level::avx2) return &simd_avx2::uniform_rows;
-#endif
-    (void)level;
-    return &simd_scalar::uniform_rows;
-}
+inline ice_rows_function ice_rows_for(simd_level level) { return FROSTLINE_PICK_LEVEL(level, uniform_rows); }
 
 class ice_split_sweeper {
 public:
@@ -51,19 +38,14 @@ public:
 private:
     void run(std::int32_t* top, std::int32_t* bottom, std::int64_t time) const {
         const std::uint64_t base = sweep_base(key_, stream_, time);
-        for (std::int32_t parity = 0; parity < 2; ++parity) {
-            if (!team_) {
-                rows_(n_, grid_.half_width(), top, bottom, base, parity, 1, n_);
-                continue;
-            }
-            team_->run([&](int part) {
-                const auto [first, last] = team_->block(n_ - 1, part);  // of the free rows 1..n - 1
+        for (std::int32_t parity = 0; parity < 2; ++parity)
+            for_blocks(team_, n_ - 1, [&](std::int64_t first, std::int64_t last) {  // of the free rows 1..n - 1
                 rows_(n_, grid_.half_width(), top, bottom, base, parity, static_cast<std::int32_t>(first + 1),
                       static_cast<std::int32_t>(last + 1));
             });
-        }
     }
 
+private:
     std::int32_t n_;
     split_grid grid_;
     random_key key_;

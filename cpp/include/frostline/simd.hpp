@@ -64,3 +64,26 @@ inline simd_level simd_choice() {
 }
 
 }  // namespace frostline
+
+// Declares a kernel's entry point `name` in the level namespaces simd_scalar,
+// simd_avx2 and simd_avx512 of the enclosing namespace (each defined by one
+// translation unit compiled with that level's flags; the AVX ones in x86 builds only).
+#define FROSTLINE_DECLARE_LEVELS(ret, name, params) \
+    namespace simd_scalar {                         \
+    ret name params;                                \
+    }                                               \
+    namespace simd_avx2 {                           \
+    ret name params;                                \
+    }                                               \
+    namespace simd_avx512 {                         \
+    ret name params;                                \
+    }
+
+// The entry point `name` of the given simd_level (scalar where the build has no other).
+#if defined(FROSTLINE_X86_LEVELS)
+#define FROSTLINE_PICK_LEVEL(level, name)                                           \
+    ((level) == ::frostline::simd_level::avx512 ? &simd_avx512::name               \
+     : (level) == ::frostline::simd_level::avx2 ? &simd_avx2::name : &simd_scalar::name)
+#else
+#define FROSTLINE_PICK_LEVEL(level, name) ((void)(level), &simd_scalar::name)
+#endif

@@ -10,10 +10,12 @@
 // The team lives for one call (one exact sample) and joins its threads on
 // destruction.
 #pragma once
+#include <algorithm>
 #include <atomic>
 #include <cstdint>
 #include <exception>
 #include <functional>
+#include <memory>
 #include <mutex>
 #include <thread>
 #include <vector>
@@ -113,5 +115,44 @@ private:
     std::mutex error_lock_;
     std::exception_ptr error_;
 };
+
+// Calls body(first, last) on blocks of the items 0..n-1: one block per member
+// of the team at the same time, or the whole range when there is no team.
+template <class Body>
+void for_blocks(const std::shared_ptr<thread_team>& team, std::int64_t n, Body&& body) {
+    if (!team) {
+        body(std::int64_t(0), n);
+        return;
+    }
+    team->run([&](int part) {
+        const auto range = team->block(n, part);
+        body(range.first, range.second);
+    });
+}
+
+// Cuts of a list of runs (each with first_site, in increasing order) into
+// `parts` blocks of about equal site count: block p is runs cuts[p]..cuts[p+1]-1.
+template <class Run>
+std::vector<std::int64_t> balanced_cuts(const std::vector<Run>& runs, std::int64_t n_sites, int parts) {
+    std::vector<std::int64_t> cuts{0};
+    for (int part = 1; part < parts; ++part) {
+        const std::int64_t share = n_sites * part / parts;
+        auto at = std::lower_bound(runs.begin(), runs.end(), share,
+                                   [](const Run& r, std::int64_t v) { return r.first_site < v; });
+        cuts.push_back(static_cast<std::int64_t>(at - runs.begin()));
+    }
+    cuts.push_back(static_cast<std::int64_t>(runs.size()));
+    return cuts;
+}
+
+// Calls body(first, last) on the blocks given by `cuts` (balanced_cuts), in parallel on the team.
+template <class Body>
+void for_cut_blocks(const std::shared_ptr<thread_team>& team, const std::vector<std::int64_t>& cuts, Body&& body) {
+    if (!team) {
+        body(cuts.front(), cuts.back());
+        return;
+    }
+    team->run([&](int part) { body(cuts[static_cast<std::size_t>(part)], cuts[static_cast<std::size_t>(part) + 1]); });
+}
 
 }  // namespace frostline
