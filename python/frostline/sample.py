@@ -28,7 +28,8 @@ class SampleInfo:
     report : Mapping[str, int or float]
         The method's own figures. For ``"cftp"``: ``start_time`` (T, in sweeps:
         the run from -T to 0 coalesced), ``coalescence_time`` (sweeps after -T
-        at which the two chains met), ``site_updates`` (heat-bath updates, both
+        at the first check that found the chains met; checks come every
+        max(4, T / 256) sweeps), ``site_updates`` (heat-bath updates, both
         chains, every epoch) and ``epochs`` (doublings). Shuffling methods report
         their own (domino shuffling: ``orders``, ``faces_filled``). Each entry is
         also readable as an attribute (``info.start_time``).

@@ -145,7 +145,6 @@ std::vector<std::int32_t> monotone_cftp(const Sweeper& sweeper, const std::vecto
         report.seconds = clock.seconds();
         return greatest;
     }
-    constexpr std::int64_t compare_every = 4;  // sweeps between coalescence checks
     const std::int64_t n = sweeper.n_sites();
     std::int64_t T = std::max<std::int64_t>(1, control.first_start_time);
     std::vector<std::int32_t> top, bottom;
@@ -159,6 +158,11 @@ std::vector<std::int32_t> monotone_cftp(const Sweeper& sweeper, const std::vecto
         top = greatest;
         bottom = least;
         bool met = false;
+        // Sweeps between coalescence checks: a check compares whole states on one thread,
+        // about as long as a sweep of a fast kernel, so long epochs check rarely (at most
+        // 256 times); checking late costs at most T / 256 extra sweeps and never changes
+        // the sample (see the top of this file).
+        const std::int64_t compare_every = std::max<std::int64_t>(4, T / 256);
         for (std::int64_t t = -T; t < 0; ++t) {
             if (met) {
                 sweeper.sweep(top.data(), t);
