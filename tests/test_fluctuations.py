@@ -105,3 +105,27 @@ def test_compare_with_exact_on_a_weighted_lozenge_region():
     report = fl.analysis.compare_with_exact(region.samples(1500, seed=9))
     assert report.bonferroni_p > 1e-4
     assert math.isclose(float(report.probabilities.sum()), region.n_lozenges, rel_tol=1e-9)
+
+
+@pytest.mark.parametrize("make", [lambda: fl.lozenge.trapezoid(6, 4), lambda: fl.lozenge.trapezoid(6, 4, q=0.7),
+                                  lambda: fl.domino.aztec_diamond(4),
+                                  lambda: fl.domino.aztec_diamond(3, vertical_weight=2.0)])
+def test_mean_heights_match_enumeration(make):
+    region = make()
+    mean = fl.exact.mean_heights(region)
+    configurations, probabilities = fl.exact.distribution(region)
+    exact = sum(float(p) * np.asarray(h, dtype=float) for h, p in zip(configurations, probabilities))
+    inside = ~np.isnan(mean)
+    assert inside.any()
+    np.testing.assert_allclose(mean[inside], exact[inside], atol=1e-10)
+
+
+def test_mean_heights_against_samples_of_a_larger_region():
+    region = fl.domino.aztec_diamond(12)
+    mean = fl.exact.mean_heights(region)
+    stack = np.stack([s.heights for s in region.samples(400, seed=5)]).astype(float)
+    r, c = 12, 12
+    error = stack[:, r, c].std(ddof=1) / np.sqrt(len(stack))
+    assert abs(stack[:, r, c].mean() - mean[r, c]) < 4 * error
+    with pytest.raises(ValueError, match="hexagon_region"):
+        fl.exact.mean_heights(fl.lozenge.hexagon(3, 3, 3))

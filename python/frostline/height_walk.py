@@ -93,6 +93,35 @@ def integrate(values: np.ndarray, known: np.ndarray, tails: np.ndarray, heads: n
                                           np.asarray(deltas, dtype=np.int64))
 
 
+def integrate_expected(values: np.ndarray, known: np.ndarray, tails: np.ndarray, heads: np.ndarray,
+                       deltas: np.ndarray) -> np.ndarray:
+    """Fill unknown (float) values from known ones along edges with v[head] - v[tail] = delta.
+
+    For expected heights: the deltas are expected height changes, so every
+    path gives the same value up to rounding; a breadth-first spanning tree
+    from the known points is walked once (no consistency check). Points no
+    edge reaches keep their given values.
+    """
+    values = np.asarray(values, dtype=float).copy()
+    done = np.asarray(known, dtype=bool).copy()
+    a = np.concatenate([np.asarray(tails), np.asarray(heads)]).astype(np.int64)
+    b = np.concatenate([np.asarray(heads), np.asarray(tails)]).astype(np.int64)
+    d = np.concatenate([np.asarray(deltas, dtype=float), -np.asarray(deltas, dtype=float)])
+    order = np.argsort(a, kind="stable")
+    a, b, d = a[order], b[order], d[order]
+    start = np.searchsorted(a, np.arange(len(values) + 1))
+    queue = deque(np.flatnonzero(done).tolist())
+    while queue:
+        v = queue.popleft()
+        for e in range(start[v], start[v + 1]):
+            w = b[e]
+            if not done[w]:
+                values[w] = values[v] + d[e]
+                done[w] = True
+                queue.append(w)
+    return values
+
+
 def pieces(n_items: int, links_a: np.ndarray, links_b: np.ndarray) -> np.ndarray:
     """Connected components (labels 0..k-1) of items joined by links (union-find in the engine)."""
     from . import _core

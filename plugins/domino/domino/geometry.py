@@ -120,6 +120,14 @@ class SquareGeometry:
         v_head = np.where(downwards, (r + 1) * width + c, r * width + c)
         return (np.concatenate([h_tail, v_tail]).astype(np.int64), np.concatenate([h_head, v_head]).astype(np.int64))
 
+    def expected_step_down(self, crossed_probability: np.ndarray) -> np.ndarray:
+        """E[h(r + 1, c) - h(r, c)] along every vertical edge, given the chance that a domino crosses it."""
+        R, C = self.shape
+        rise = 1.0 - 4.0 * np.asarray(crossed_probability, dtype=float)
+        row_odd = (np.arange(R) % 2).astype(bool)[:, None]
+        column_odd = (np.arange(C + 1) % 2).astype(bool)[None, :]
+        return np.where(row_odd == column_odd, rise, -rise)
+
     def step_down(self, crossed_vertical: np.ndarray) -> np.ndarray:
         """h(r + 1, c) - h(r, c) along every vertical edge, shape (R, C + 1).
 

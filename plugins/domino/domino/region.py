@@ -252,6 +252,29 @@ class DominoRegion(Region):
             heights[r, cols] = heights[r - 1, cols] + step[r - 1, cols]
         return heights.astype(np.int32)
 
+    def expected_heights(self, tiles: np.ndarray, probabilities: np.ndarray) -> np.ndarray:
+        """Expected corner heights (float, layout of ``Sample.heights``; NaN outside) from placement probabilities.
+
+        The column scan of :meth:`heights_from_tiles` with expected steps: a
+        vertical edge changes the height by +-1, or -+3 when a horizontal
+        domino crosses it, so by +-(1 - 4 p) on average.
+        """
+        R, C = self.geometry.shape
+        t = np.asarray(tiles, dtype=np.int64).reshape(-1, 2, 2)
+        horizontal = t[:, 0, 0] == t[:, 1, 0]
+        right = np.maximum(t[horizontal, 0, 1], t[horizontal, 1, 1])   # the edge left of the right cell
+        crossed = np.zeros((R, C + 1))
+        crossed[t[horizontal, 0, 0], right] = np.asarray(probabilities, dtype=float)[horizontal]
+        step = self.geometry.expected_step_down(crossed)
+        heights = np.zeros((R + 1) * (C + 1))
+        heights[self._boundary_points] = self._boundary_heights
+        heights = heights.reshape(R + 1, C + 1)
+        interior = self.geometry.corner_interior
+        for r in range(1, R):
+            cols = interior[r]
+            heights[r, cols] = heights[r - 1, cols] + step[r - 1, cols]
+        return np.where(self.corner_mask, heights, np.nan)
+
     def height_field(self, heights: np.ndarray) -> np.ndarray:
         """Thurston's height / 4 on the corners (NaN outside the region): it changes by 1 around a vertex."""
         h = np.asarray(self.check_heights(heights), dtype=float) / 4.0

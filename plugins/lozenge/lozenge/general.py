@@ -23,7 +23,7 @@ import numpy as np
 from frostline import _core
 from frostline._limits import check_memory
 from frostline.exact.budget import DEFAULT_BUDGET_SECONDS
-from frostline.height_walk import integrate, walk_boundary
+from frostline.height_walk import integrate, integrate_expected, walk_boundary
 from frostline.methods import ExactMethod, RunOptions
 from frostline.model import HeightModel
 from frostline.region import Region
@@ -209,6 +209,29 @@ class LozengeRegion(LozengeTiles, Region):
                       np.concatenate([g.point_id(tp, tq) for _, _, tp, tq in ends]),
                       np.concatenate(deltas)).reshape(g.up.shape)
         return np.where(self.vertex_mask, h[self._crop], 0).astype(np.int32)
+
+    def expected_heights(self, tiles: np.ndarray, probabilities: np.ndarray) -> np.ndarray:
+        """Expected heights (float, layout of ``Sample.heights``) from placement probabilities.
+
+        Along an interior edge the height rises by 1, or falls by 2 when the
+        lozenge across it is present, so its expected change is 1 - 3 p; the
+        boundary heights are fixed. NaN outside the region.
+        """
+        ox, oy = self.grid.origin
+        p = [np.zeros(self.grid.up.shape) for _ in range(3)]
+        tiles = np.asarray(tiles, dtype=np.int64).reshape(-1, 3)
+        for t in range(3):
+            sel = tiles[:, 2] == t
+            p[t][tiles[sel, 0] - ox, tiles[sel, 1] - oy] = np.asarray(probabilities, dtype=float)[sel]
+        g = self.grid
+        values = self._grid_heights(self._model.extremes()[0]).astype(float).ravel()
+        known = np.zeros(values.shape, bool)
+        known[self._boundary_points] = True
+        ends = [g.edge_ends(t, self._inner[t]) for t in range(3)]
+        h = integrate_expected(values, known, np.concatenate([g.point_id(fp, fq) for fp, fq, _, _ in ends]),
+                               np.concatenate([g.point_id(tp, tq) for _, _, tp, tq in ends]),
+                               np.concatenate([1.0 - 3.0 * p[t][self._inner[t]] for t in range(3)]))
+        return np.where(self.vertex_mask, h.reshape(g.up.shape)[self._crop], np.nan)
 
     def heights_from_model(self, node_heights: np.ndarray) -> np.ndarray:
         return self._heights_from_nodes(node_heights)

@@ -4,6 +4,7 @@
 - ``distribution(region)``: configurations with exact probabilities under the region's weights
 - ``integer_determinant(matrix)``: exact determinants (modular, banded elimination)
 - ``placement_probabilities(region)``: (tiles, p) from the inverse Kasteleyn matrix
+- ``mean_heights(region)``: the exact expected height at every point
 - ``class_densities(region)``: the same grouped by tile class, with tile centres
 - ``log_partition_function(region)``: log of the (weighted) tiling count with a checked error bound
 - ``certified_log_abs_det(matrix)``: log |det| with its bound (float, exact integers or intervals)
@@ -17,6 +18,7 @@ from .local_statistics import (
                                class_densities,
                                log_partition_function,
                                log_partition_function_bound,
+                               mean_heights,
                                placement_probabilities,
 )
 
@@ -24,4 +26,4 @@ enumerate = enumerate_configurations  # noqa: A001 - the public name of the cont
 
 __all__ = ["CertifiedLog", "EnumerationTooLarge", "certified_log_abs_det", "class_densities", "distribution", "enumerate", "enumerate_configurations",
            "enumerate_heights", "formulas", "integer_determinant", "log_partition_function", "log_partition_function_bound",
-           "placement_probabilities"]
+           "mean_heights", "placement_probabilities"]

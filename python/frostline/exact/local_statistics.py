@@ -52,6 +52,21 @@ def _worst_sum(index: np.ndarray, p: np.ndarray, n: int) -> float:
     return float(np.max(np.abs(sums - 1.0))) if n else 0.0
 
 
+def mean_heights(region: Any, tolerance: float = 1e-6) -> np.ndarray:
+    """The exact expected height at every point, in the layout of ``Sample.heights`` (float; NaN outside).
+
+    From the placement probabilities, summed along paths from the boundary
+    (the expected change along an edge is linear in the chance that a tile
+    crosses it). For plugins whose regions offer ``expected_heights``
+    (general lozenge regions, domino regions); ValueError otherwise.
+    """
+    if not hasattr(region, "expected_heights"):
+        raise ValueError(f"{type(region).__name__} has no exact mean heights (no expected_heights); for a box "
+                         "hexagon use the same hexagon as a general region (lozenge.hexagon_region)")
+    tiles, p = placement_probabilities(region, tolerance)
+    return region.expected_heights(tiles, p)
+
+
 def class_densities(region: Any, tolerance: float = 1e-6) -> Dict[str, Tuple[np.ndarray, np.ndarray]]:
     """For each tile class: (tile centres in plane coordinates, probabilities)."""
     tiles, p = placement_probabilities(region, tolerance)
