@@ -31,6 +31,7 @@ from . import custom
 from ._version import __version__
 from .chain import Chain
 from .diagnostics import ChainDiagnostics, equilibrium_diagnostics
+from .ensemble import Ensemble, ensemble
 from .errors import FrostlineWarning, RegionTooLargeError
 from .io import load, save
 from .lattice_spec import Argument, LatticeSpec, Shape
@@ -47,6 +48,7 @@ __all__ = [
     "Chain",
     "ChainKernel",
     "ChainDiagnostics",
+    "Ensemble",
     "FrostlineWarning",
     "ExactMethod",
     "HeightModel",
@@ -64,6 +66,7 @@ __all__ = [
     "check_model",
     "check_monotone",
     "custom",
+    "ensemble",
     "equilibrium_diagnostics",
     "get_cmake_dir",
     "get_include",

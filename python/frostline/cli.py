@@ -70,7 +70,17 @@ def _shape_table() -> Dict[str, Tuple[str, Any]]:
     return table
 
 
-def _add_shapes(parent: argparse.ArgumentParser, sampling: bool, picture_required: bool = False) -> None:
+def _add_ensemble_options(p: argparse.ArgumentParser) -> None:
+    p.add_argument("--size", type=int, required=True, help="number of members")
+    p.add_argument("--seed", type=int, required=True, help="non-negative int; member i comes from child i")
+    p.add_argument("--store", type=Path, default=None,
+                   help="zarr store to write members to; running the same command again resumes it")
+    p.add_argument("--workers", type=int, default=None, help="local worker threads (default: all cores)")
+    p.add_argument("--scheduler", default=None, help="address of a Dask scheduler (tcp://host:port) to run on")
+
+
+def _add_shapes(parent: argparse.ArgumentParser, sampling: bool, picture_required: bool = False,
+                ensemble: bool = False) -> None:
     shapes = parent.add_subparsers(dest="shape", metavar="SHAPE", required=True)
     for name, (_, shape) in _shape_table().items():
         p = shapes.add_parser(name, help=shape.help, description=shape.description or shape.help)
@@ -87,6 +97,8 @@ def _add_shapes(parent: argparse.ArgumentParser, sampling: bool, picture_require
             argument.add_to(target)
         if picture_required:
             p.add_argument("--picture", type=Path, required=True, help="the picture to write (.png, .svg or .pdf)")
+        if ensemble:
+            _add_ensemble_options(p)
         if sampling:
             p.add_argument("--seed", type=int, default=None,
                            help="non-negative int; the same seed gives the same sample (default: fresh, printed)")
@@ -112,6 +124,12 @@ def _parser() -> argparse.ArgumentParser:
     sample = commands.add_parser("sample", help="draw one exact sample of a region",
                                  description="Draw one exact sample; print its diagnostics; draw it or save it.")
     _add_shapes(sample, sampling=True)
+    ensemble = commands.add_parser(
+        "ensemble", help="draw many exact samples of a region into a resumable store, with statistics",
+        description="Member i is the exact sample from child i of the seed; with --store the members go to a "
+                    "zarr store (resumable: run the same command again), and the mean and variance of the heights "
+                    "are printed at the end.")
+    _add_shapes(ensemble, sampling=False, ensemble=True)
     count = commands.add_parser("count", help="print the exact number of tilings of a region")
     _add_shapes(count, sampling=False)
     density = commands.add_parser("density", help="draw the exact density of each tile class of a region",
@@ -222,6 +240,36 @@ def _write(sample, picture: Optional[Path], output: Optional[Path], style: Optio
         print(f"picture written to {picture}")
 
 
+def _ensemble(args) -> int:
+    import numpy as np
+
+    from .ensemble import ensemble, print_progress
+
+    region = _region(args)
+    client = None
+    if args.scheduler is not None:
+        try:
+            from distributed import Client
+        except ImportError as exc:
+            raise ValueError("--scheduler needs dask.distributed: pip install 'frostline[cluster]'") from exc
+        client = Client(args.scheduler)
+    started = time.perf_counter()
+    try:
+        e = ensemble(region, args.size, seed=args.seed, store=args.store, workers=args.workers, client=client,
+                     progress=print_progress())
+    finally:
+        if client is not None:
+            client.close()
+    mean = e.mean_heights
+    print(f"ensemble of {e.size} exact samples of {region!r} in {time.perf_counter() - started:.3g} s")
+    if args.store is not None:
+        print(f"  store           {args.store}")
+    print(f"  mean height     {float(np.nanmean(mean)):.6g} (over the points)")
+    if e.size > 1:
+        print(f"  mean variance   {float(np.nanmean(e.var_heights)):.6g} (over the points)")
+    return 0
+
+
 def _count(args) -> int:
     if hasattr(sys, "set_int_max_str_digits"):
         sys.set_int_max_str_digits(0)  # counts can have millions of digits
@@ -315,7 +363,7 @@ def _lattices(args) -> int:
 def main(argv: Optional[Sequence[str]] = None) -> int:
     """Entry point of the ``frostline`` command; returns the exit status."""
     args = _parser().parse_args(list(argv) if argv is not None else None)
-    handlers = {"sample": _sample, "count": _count, "density": _density, "compare": _compare, "show": _show,
+    handlers = {"sample": _sample, "ensemble": _ensemble, "count": _count, "density": _density, "compare": _compare, "show": _show,
                 "demo": _demo, "lattices": _lattices}
     try:
         return handlers[args.command](args)

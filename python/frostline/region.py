@@ -20,7 +20,7 @@ from .chain import Chain
 from .methods import ChainKernel, EngineKey, ExactMethod, RunOptions, engine_report, resolve
 from .model import HeightModel, ProgressHook
 from .sample import Sample, SampleInfo
-from .seeding import SeedLike, engine_key, normalise_seed, seed_record
+from .seeding import SeedLike, child_sequence, engine_key, normalise_seed, seed_record
 
 StartLike = Union[str, np.ndarray]
 
@@ -291,7 +291,7 @@ class Region(abc.ABC):
         root = seed_record(normalise_seed(seed)).sequence()
 
         def child(i: int) -> np.random.SeedSequence:
-            return np.random.SeedSequence(root.entropy, spawn_key=(*root.spawn_key, i), pool_size=root.pool_size)
+            return child_sequence(root, i)
 
         stop = threading.Event()
 

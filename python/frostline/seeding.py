@@ -81,3 +81,12 @@ def seed_record(sequence: np.random.SeedSequence) -> SeedRecord:
         value = tuple(int(v) for v in np.asarray(entropy).ravel())
     return SeedRecord(entropy=value, spawn_key=tuple(int(v) for v in sequence.spawn_key),
                       pool_size=int(sequence.pool_size))
+
+
+def child_sequence(root: np.random.SeedSequence, i: int) -> np.random.SeedSequence:
+    """Child ``i`` of ``root``: the same as ``root.spawn(k)[i]`` on a fresh copy of ``root``, made alone.
+
+    Ensembles use it so that member i never depends on how many members are
+    made, where, or in what order.
+    """
+    return np.random.SeedSequence(root.entropy, spawn_key=(*root.spawn_key, int(i)), pool_size=root.pool_size)

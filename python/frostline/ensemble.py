@@ -1,0 +1,338 @@
+"""Ensembles of exact samples: local threads or processes, or a Dask cluster; stored in zarr, resumable.
+
+Member i is the exact sample from child i of the seed's SeedSequence
+(:func:`frostline.seeding.child_sequence`), so it equals
+``region.samples(size, seed=seed)[i]`` whatever ran it, where, and in what
+order. Statistics are streamed as exact integer sums of the heights and their
+squares (int64), so any order of arrival gives bit-identical means and
+variances, and the members need not be kept.
+
+A store (a path or a zarr store; zarr and, for clusters, dask.distributed
+are the optional extra ``frostline[cluster]``) is a zarr group: ``heights``
+of shape (size, ...), one member per chunk, the per-member report figures as
+arrays of their own, and ``done``, written last for each member as its
+commit mark; chunks carry a crc32c checksum. Attributes hold the region's
+description, the seed record and frostline's version, written once by the
+coordinating process. Re-running the same call on an existing store computes
+only the members not marked done, and refuses a store made for another
+region, seed, size or version.
+"""
+from __future__ import annotations
+
+import os
+import sys
+import time
+from concurrent.futures import FIRST_COMPLETED, Future, ProcessPoolExecutor, ThreadPoolExecutor, wait
+from dataclasses import dataclass
+from typing import Any, Callable, Dict, List, Optional, Tuple
+
+import numpy as np
+
+from ._validate import count as _check_count
+from ._version import __version__
+from .sample import Sample, SampleInfo
+from .seeding import SeedLike, child_sequence, normalise_seed, seed_record
+
+FORMAT = "frostline-ensemble"
+_REPORT_FIELDS = ("seconds",)  # always stored; the method's numeric report figures are added on first use
+
+
+def _payload(region: Any) -> Tuple[str, Dict[str, Any], Dict[str, np.ndarray]]:
+    """What rebuilds the region in another process: (lattice, description, arrays)."""
+    return region.lattice, region.describe(), {k: np.asarray(v) for k, v in region.record_arrays().items()}
+
+
+def _rebuild(payload: Tuple[str, Dict[str, Any], Dict[str, np.ndarray]]) -> Any:
+    from .registry import spec
+
+    lattice, description, arrays = payload
+    declared = spec(lattice)
+    if declared.region_from_record is None:
+        raise ValueError(f"the lattice {lattice!r} cannot rebuild its regions in another process; use "
+                         "backend='threads'")
+    return declared.region_from_record(description, arrays)
+
+
+_REGIONS: Dict[int, Any] = {}  # per worker process: the rebuilt region, by payload identity
+
+
+def _remote_member(payload: Tuple[str, Dict[str, Any], Dict[str, np.ndarray]], root: Dict[str, Any], i: int,
+                   method: str) -> Tuple[int, np.ndarray, Dict[str, Any]]:
+    """Member i, computed in a worker process (or on a cluster worker): (i, heights, info)."""
+    from .seeding import SeedRecord
+
+    key = hash((payload[0], repr(sorted(payload[1].items()))))
+    region = _REGIONS.get(key)
+    if region is None:
+        region = _REGIONS[key] = _rebuild(payload)
+    sample = region.sample(child_sequence(SeedRecord.from_dict(root).sequence(), i), method=method)
+    return i, np.asarray(sample.heights), sample.info.as_dict()
+
+
+@dataclass
+class _Sums:
+    """Exact integer sums of the heights and their squares, and the number of members."""
+
+    total: np.ndarray
+    squares: np.ndarray
+    members: int = 0
+
+    def add(self, heights: np.ndarray) -> None:
+        h = np.asarray(heights, dtype=np.int64)
+        self.total += h
+        self.squares += h * h
+        self.members += 1
+
+
+class Ensemble:
+    """The members and streamed statistics of one ensemble (see :func:`ensemble`)."""
+
+    def __init__(self, region: Any, size: int, root: np.random.SeedSequence, method: str,
+                 group: Any, sums: _Sums, infos: Dict[int, Dict[str, Any]]) -> None:
+        self.region = region
+        self.size = size
+        self.method = method
+        self.seed = seed_record(root)
+        self._root = root
+        self._group = group
+        self._sums = sums
+        self._infos = infos
+
+    def __len__(self) -> int:
+        return self.size
+
+    def __getitem__(self, i: int) -> Sample:
+        """Member i: read from the store when there is one, else drawn again (the same sample)."""
+        i = _check_count(i, "member index")
+        if not 0 <= i < self.size:
+            raise IndexError(f"member {i} of an ensemble of {self.size}")
+        if self._group is not None and bool(self._group["done"][i]):
+            info = {"method": str(self._group.attrs["method_family"]), "kernel": str(self._group.attrs["kernel"]),
+                    "seconds": float(self._group["seconds"][i]),
+                    "seed": seed_record(child_sequence(self._root, i)).as_dict(),
+                    "report": {k: int(self._group[f"report_{k}"][i]) for k in self._group.attrs["report_fields"]},
+                    "version": __version__}
+            return Sample(region=self.region, heights=np.asarray(self._group["heights"][i]),
+                          info=SampleInfo.from_dict(info))
+        return self.region.sample(child_sequence(self._root, i), method=self.method)
+
+    @property
+    def mean_heights(self) -> np.ndarray:
+        """Mean height at every point over the members (float; from exact integer sums)."""
+        if self._sums.members == 0:
+            raise ValueError("the ensemble has no members")
+        return self._sums.total / self._sums.members
+
+    @property
+    def var_heights(self) -> np.ndarray:
+        """Unbiased variance of the height at every point (ddof = 1; from exact integer sums)."""
+        k = self._sums.members
+        if k < 2:
+            raise ValueError("a variance needs at least two members")
+        return (self._sums.squares - self._sums.total.astype(float) ** 2 / k) / (k - 1)
+
+    @property
+    def sums(self) -> Tuple[np.ndarray, np.ndarray, int]:
+        """(sum of heights, sum of squared heights, members): exact int64 arrays, mergeable in any order."""
+        return self._sums.total.copy(), self._sums.squares.copy(), self._sums.members
+
+
+def _open_store(store: Any, region: Any, size: int, root: np.random.SeedSequence, method: str,
+                shape: Tuple[int, ...]) -> Any:
+    try:
+        import zarr
+    except ImportError as exc:  # pragma: no cover - depends on the install
+        raise ImportError("ensemble stores need zarr: pip install 'frostline[cluster]'") from exc
+    identity = {"format": FORMAT, "frostline_version": __version__, "region": region.describe(), "size": size,
+                "seed": seed_record(root).as_dict(), "method": method, "shape": list(shape)}
+    group = zarr.open_group(store, mode="a")
+    if "format" in group.attrs:
+        found = {k: group.attrs.get(k) for k in identity}
+        different = [k for k in identity if _plain(found[k]) != _plain(identity[k])]
+        if different:
+            raise ValueError(f"the store at {store} holds another ensemble (different: {', '.join(different)}); "
+                             "use a new store, or the same region, seed, size, method and frostline version")
+        return group
+    group.create_array("heights", shape=(size, *shape), chunks=(1, *shape), dtype="int32", fill_value=0,
+                       compressors=_codecs())
+    group.create_array("seconds", shape=(size,), chunks=(1,), dtype="float64", fill_value=0.0,
+                       compressors=_codecs())
+    group.create_array("done", shape=(size,), chunks=(1,), dtype="uint8", fill_value=0, compressors=_codecs())
+    group.attrs.update(identity)
+    return group
+
+
+def _codecs() -> list:
+    """Compression, then a crc32c checksum of every chunk (corruption is detected on read)."""
+    from zarr.codecs import Crc32cCodec, ZstdCodec
+
+    return [ZstdCodec(level=3), Crc32cCodec()]
+
+
+def _plain(value: Any) -> Any:
+    """JSON-comparable form (tuples as lists) of an attribute."""
+    import json
+
+    return json.loads(json.dumps(value))
+
+
+def _done_members(group: Any, size: int) -> np.ndarray:
+    """Which members the store marks done; a mark that fails its checksum counts as not done."""
+    done = np.zeros(size, dtype=bool)
+    for i in range(size):
+        try:
+            done[i] = bool(group["done"][i])
+        except Exception:  # a corrupted chunk: recompute that member
+            done[i] = False
+    return done
+
+
+def ensemble(region: Any, size: int, seed: SeedLike = None, *, store: Any = None, workers: Optional[int] = None,
+             backend: str = "threads", client: Any = None, method: str = "auto",
+             progress: Optional[Callable[[int, int, float], None]] = None) -> Ensemble:
+    """``size`` exact samples of ``region``, member i from child i of the seed (see the module docstring).
+
+    Parameters
+    ----------
+    store : path or zarr store, optional
+        Where members are written (resumable); None keeps only the statistics.
+    workers, backend : int, "threads" or "processes"
+        Local execution (default: all cores, threads).
+    client : dask.distributed.Client, optional
+        Run members on a cluster instead (the region is rebuilt on the workers).
+    progress : callable(done, size, seconds), optional
+        Called as members finish.
+    """
+    size = _check_count(size, "size")
+    if backend not in ("threads", "processes"):
+        raise ValueError(f"backend must be 'threads' or 'processes', got {backend!r}")
+    workers = os.cpu_count() or 1 if workers is None else _check_count(workers, "workers")
+    if workers < 1:
+        raise ValueError("workers must be at least 1")
+    root = seed_record(normalise_seed(seed)).sequence()
+    shape = tuple(np.asarray(region.extreme_heights()[0]).shape)
+    from ._limits import check_memory
+
+    check_memory(3 * 8 * int(np.prod(shape)) + 10**6, "the ensemble's running sums")
+    group = _open_store(store, region, size, root, method, shape) if store is not None else None
+    done = _done_members(group, size) if group is not None else np.zeros(size, dtype=bool)
+    sums = _Sums(np.zeros(shape, dtype=np.int64), np.zeros(shape, dtype=np.int64))
+    if group is not None:
+        for i in np.flatnonzero(done):
+            try:  # a chunk that fails its checksum is not data: that member is drawn again
+                heights = np.asarray(group["heights"][int(i)])
+            except Exception:
+                done[i] = False
+                continue
+            sums.add(heights)
+    infos: Dict[int, Dict[str, Any]] = {}
+    todo = [int(i) for i in np.flatnonzero(~done)]
+    started = time.perf_counter()
+
+    def commit(i: int, heights: np.ndarray, info: Dict[str, Any]) -> None:
+        heights = np.asarray(heights)
+        if heights.shape != shape:
+            raise RuntimeError(f"member {i} came back with heights of shape {heights.shape}, not {shape}")
+        if group is not None:
+            _write_member(group, i, heights, info)
+        sums.add(heights)
+        infos[i] = info
+        if progress is not None:
+            progress(sums.members, size, time.perf_counter() - started)
+
+    if client is not None:
+        _run_on_cluster(client, region, root, method, todo, commit)
+    elif backend == "processes" and workers > 1:
+        _run_local(ProcessPoolExecutor(max_workers=workers), workers, region, root, method, todo, commit, True)
+    else:
+        _run_local(ThreadPoolExecutor(max_workers=workers), workers, region, root, method, todo, commit, False)
+    return Ensemble(region, size, root, method, group, sums, infos)
+
+
+def _write_member(group: Any, i: int, heights: np.ndarray, info: Dict[str, Any]) -> None:
+    """Member i whole, then its commit mark (a kill before the mark leaves it to be recomputed)."""
+    report = {k: v for k, v in info.get("report", {}).items() if isinstance(v, (int, np.integer))}
+    if "report_fields" not in group.attrs:
+        group.attrs.update({"report_fields": sorted(report), "method_family": info.get("method", ""),
+                            "kernel": info.get("kernel", "")})
+    for name in group.attrs["report_fields"]:
+        key = f"report_{name}"
+        if key not in group:
+            group.create_array(key, shape=(group["done"].shape[0],), chunks=(1,), dtype="int64", fill_value=0,
+                               compressors=_codecs())
+        group[key][i] = int(report.get(name, 0))
+    group["heights"][i] = heights.astype(np.int32)
+    group["seconds"][i] = float(info.get("seconds", 0.0))
+    group["done"][i] = 1
+
+
+def _run_local(pool: Any, workers: int, region: Any, root: np.random.SeedSequence, method: str, todo: List[int],
+               commit: Callable[[int, np.ndarray, Dict[str, Any]], None], processes: bool) -> None:
+    payload = _payload(region) if processes else None
+    root_dict = seed_record(root).as_dict()
+
+    def submit(i: int) -> Future:
+        if processes:
+            return pool.submit(_remote_member, payload, root_dict, i, method)
+        return pool.submit(_local_member, region, root, i, method)
+
+    pending: set = set()
+    queue = list(reversed(todo))
+    try:
+        while queue or pending:
+            while queue and len(pending) < 4 * workers:
+                pending.add(submit(queue.pop()))
+            finished, pending = wait(pending, timeout=0.2, return_when=FIRST_COMPLETED)
+            for future in finished:
+                commit(*future.result())
+    except BaseException:
+        for future in pending:
+            future.cancel()
+        raise
+    finally:
+        pool.shutdown(wait=True, cancel_futures=True)
+
+
+def _local_member(region: Any, root: np.random.SeedSequence, i: int, method: str):
+    sample = region.sample(child_sequence(root, i), method=method)
+    return i, np.asarray(sample.heights), sample.info.as_dict()
+
+
+def _run_on_cluster(client: Any, region: Any, root: np.random.SeedSequence, method: str, todo: List[int],
+                    commit: Callable[[int, np.ndarray, Dict[str, Any]], None]) -> None:
+    from distributed import as_completed
+
+    payload = client.scatter(_payload(region), broadcast=True)
+    root_dict = seed_record(root).as_dict()
+    futures = client.map(_remote_member, [payload] * len(todo), [root_dict] * len(todo), todo,
+                         [method] * len(todo), pure=False)
+    try:
+        for future in as_completed(futures):
+            commit(*future.result())
+    except BaseException:
+        client.cancel(futures)
+        raise
+
+
+class _ProgressLine:
+    """A one-line progress report on stderr (members done, rate, time left), at most twice a second."""
+
+    def __init__(self) -> None:
+        self._last = 0.0
+
+    def __call__(self, done: int, size: int, seconds: float) -> None:
+        now = time.perf_counter()
+        if done < size and now - self._last < 0.5:
+            return
+        self._last = now
+        rate = done / seconds if seconds > 0 else 0.0
+        left = (size - done) / rate if rate > 0 else float("nan")
+        sys.stderr.write(f"\r{done}/{size} members, {rate:.3g}/s, about {left:.0f} s left   ")
+        if done == size:
+            sys.stderr.write("\n")
+        sys.stderr.flush()
+
+
+def print_progress() -> Callable[[int, int, float], None]:
+    """A progress hook for :func:`ensemble` that keeps one line on stderr up to date."""
+    return _ProgressLine()
