@@ -110,3 +110,14 @@ def test_domino_counts_use_closed_forms_or_refuse():
     small[-1, -2:] = False
     # cross-check the determinant path on a small notched square against enumeration
     assert fl.domino.from_mask(small).count(budget=None) == len(fl.exact.enumerate(fl.domino.from_mask(small)))
+
+
+def test_command_line_count_caps_and_no_limits(capsys):
+    from frostline.cli import main
+
+    assert main(["count", "rectangle", "1000", "1000"]) == 2
+    assert "--no-limits" in capsys.readouterr().err
+    assert main(["count", "rectangle", "30", "30", "--no-limits"]) == 0
+    assert capsys.readouterr().out.strip() == str(rectangle_count(30, 30))
+    assert main(["count", "hexagon", "3", "3", "3", "--no-limits"]) == 0
+    assert capsys.readouterr().out.strip() == "980"

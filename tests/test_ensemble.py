@@ -126,3 +126,18 @@ def test_command_line_ensemble_resumes(tmp_path, capsys):
     assert capsys.readouterr().out.splitlines()[-2:] == first.splitlines()[-2:]
     assert main(args[:6] + ["13"] + args[7:]) == 2  # another size: refused
     assert "another ensemble" in capsys.readouterr().err
+
+
+def test_show_summarises_a_store(tmp_path, capsys):
+    from frostline.cli import main
+
+    store = tmp_path / "s.zarr"
+    e = fl.ensemble(REGION, 5, seed=2, store=store, workers=1)
+    assert main(["show", str(store)]) == 0
+    out = capsys.readouterr().out
+    assert "5 members, 5 done" in out
+    assert f"{float(e.mean_heights.mean()):.6g}"[:5] in out
+    other = tmp_path / "other"
+    other.mkdir()
+    assert main(["show", str(other)]) == 2
+    assert "not a frostline ensemble store" in capsys.readouterr().err

@@ -210,9 +210,14 @@ void register_engine(py::module_& parent) {
 
     m.def("all_configurations", [](const height_model& model, std::int64_t cap) {
         std::vector<std::int32_t> rows;
+        const std::function<bool()> keep_going = [] {  // Ctrl-C reaches Python here
+            py::gil_scoped_acquire hold;
+            if (PyErr_CheckSignals() != 0) throw py::error_already_set();
+            return true;
+        };
         {
             py::gil_scoped_release free;  // can take a while near the cap
-            rows = all_configurations(model, cap);
+            rows = all_configurations(model, cap, keep_going);
         }
         const py::ssize_t n = model.n_sites();
         py::array_t<std::int32_t> out({n ? static_cast<py::ssize_t>(rows.size()) / n : py::ssize_t(0), n});

@@ -42,7 +42,8 @@ parentheses; the path must close without touching itself."""
 
 
 #: options every shape gets from the command line itself; a lattice may not declare them
-RESERVED_OPTIONS = ("--seed", "--method", "--picture", "--output", "--force", "-h", "--help")
+RESERVED_OPTIONS = ("--seed", "--method", "--picture", "--output", "--force", "--no-limits", "--size", "--store",
+                    "--workers", "--scheduler", "-h", "--help")
 
 
 def _shape_table() -> Dict[str, Tuple[str, Any]]:
@@ -80,7 +81,7 @@ def _add_ensemble_options(p: argparse.ArgumentParser) -> None:
 
 
 def _add_shapes(parent: argparse.ArgumentParser, sampling: bool, picture_required: bool = False,
-                ensemble: bool = False) -> None:
+                ensemble: bool = False, counting: bool = False) -> None:
     shapes = parent.add_subparsers(dest="shape", metavar="SHAPE", required=True)
     for name, (_, shape) in _shape_table().items():
         p = shapes.add_parser(name, help=shape.help, description=shape.description or shape.help)
@@ -99,6 +100,9 @@ def _add_shapes(parent: argparse.ArgumentParser, sampling: bool, picture_require
             p.add_argument("--picture", type=Path, required=True, help="the picture to write (.png, .svg or .pdf)")
         if ensemble:
             _add_ensemble_options(p)
+        if counting:
+            p.add_argument("--no-limits", action="store_true",
+                           help="lift the cost caps of exact counts (time and digits); Ctrl-C still stops it")
         if sampling:
             p.add_argument("--seed", type=int, default=None,
                            help="non-negative int; the same seed gives the same sample (default: fresh, printed)")
@@ -130,8 +134,10 @@ def _parser() -> argparse.ArgumentParser:
                     "zarr store (resumable: run the same command again), and the mean and variance of the heights "
                     "are printed at the end.")
     _add_shapes(ensemble, sampling=False, ensemble=True)
-    count = commands.add_parser("count", help="print the exact number of tilings of a region")
-    _add_shapes(count, sampling=False)
+    count = commands.add_parser("count", help="print the exact number of tilings of a region",
+                                description="Exact counts refuse, with their estimate, what would take more than "
+                                            "a minute or print more than a million digits; --no-limits lifts both.")
+    _add_shapes(count, sampling=False, counting=True)
     density = commands.add_parser("density", help="draw the exact density of each tile class of a region",
                                   description="Exact placement probabilities (inverse Kasteleyn matrix) drawn as one "
                                               "panel per tile class; lozenge regions with q = 1 and domino regions.")
@@ -147,7 +153,8 @@ def _parser() -> argparse.ArgumentParser:
     compare.add_argument("--prefix", type=Path, default=Path("frostline-compare"),
                          help="output files PREFIX.png, PREFIX.pdf, PREFIX.csv (default ./frostline-compare)")
     show = commands.add_parser("show", help="print the record of a saved sample and optionally draw it")
-    show.add_argument("file", type=Path, help="a .npz file written by 'frostline sample ... --output'")
+    show.add_argument("file", type=Path, help="a .npz file written by 'frostline sample ... --output', or an "
+                                              "ensemble store written by 'frostline ensemble ... --store'")
     show.add_argument("--picture", type=Path, default=None, help="write a picture (.png, .svg or .pdf)")
     demo = commands.add_parser("demo", help="sample the built-in demo and write its pictures",
                                description="Exact uniform and q-weighted samples of a hexagon, with pictures.")
@@ -273,7 +280,19 @@ def _ensemble(args) -> int:
 def _count(args) -> int:
     if hasattr(sys, "set_int_max_str_digits"):
         sys.set_int_max_str_digits(0)  # counts can have millions of digits
-    print(_region(args).count())
+    region = _region(args)
+    if args.no_limits:  # only the caps this lattice's count() takes
+        import inspect
+
+        accepted = inspect.signature(region.count).parameters
+        print(region.count(**{k: None for k in ("budget", "max_digits") if k in accepted}))
+    else:
+        try:
+            print(region.count())
+        except ValueError as exc:
+            if "budget=None" in str(exc) or "max_digits=None" in str(exc):
+                raise ValueError(f"{exc} (command line: --no-limits)") from None
+            raise
     return 0
 
 
@@ -317,6 +336,14 @@ def _compare(args) -> int:
 def _show(args) -> int:
     from .io import load
 
+    if args.file.is_dir():  # an ensemble store
+        from .ensemble import store_summary
+
+        summary = store_summary(args.file)
+        print(f"{args.file}: ensemble store of {summary['size']} members, {summary['done']} done")
+        for key in ("region", "seed", "method", "frostline_version", "mean_height"):
+            print(f"  {key.replace('_', ' '):<17} {summary[key]}")
+        return 0
     _check_outputs(args.picture, None)
     sample = load(args.file)
     print(f"{args.file}: {sample.region!r}")

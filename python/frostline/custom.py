@@ -86,7 +86,17 @@ class ModelRegion(Region):
         return self.model, self.q, self.rule
 
     def configurations(self, cap: int = 10**6) -> np.ndarray:
-        """Every configuration (rows of site heights), by depth-first search (independent of the moves)."""
+        """Every configuration (rows of site heights), by depth-first search (independent of the moves).
+
+        Raises EnumerationTooLarge above ``cap`` configurations; the memory the
+        cap could take is checked first, and Ctrl-C stops the search.
+        """
+        from ._limits import check_memory
+        from ._validate import count as check_count
+
+        cap = check_count(cap, "cap")
+        check_memory(4 * max(self.model.n_sites, 1) * cap + 10**6,
+                     f"up to {cap} configurations of {self.model.n_sites} sites (lower cap=)")
         try:
             return _core.engine.all_configurations(self.model._compiled, int(cap))
         except ValueError as exc:

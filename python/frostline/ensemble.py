@@ -314,6 +314,34 @@ def _run_on_cluster(client: Any, region: Any, root: np.random.SeedSequence, meth
         raise
 
 
+def store_summary(store: Any) -> Dict[str, Any]:
+    """What an ensemble store holds: its region, seed, size, members done, and the mean height over them.
+
+    Raises ValueError when ``store`` is not a frostline ensemble store.
+    """
+    try:
+        import zarr
+
+        group: Any = zarr.open_group(store, mode="r")
+        attrs: Dict[str, Any] = dict(group.attrs)
+    except Exception as exc:
+        raise ValueError(f"{store} is not a frostline ensemble store ({type(exc).__name__}: {exc})") from None
+    if attrs.get("format") != FORMAT:
+        raise ValueError(f"{store} is not a frostline ensemble store (no '{FORMAT}' record)")
+    size = int(attrs["size"])
+    total = np.zeros(tuple(attrs["shape"]), dtype=np.int64)
+    members = 0
+    for i in np.flatnonzero(_done_members(group, size)):
+        try:
+            total += np.asarray(group["heights"][int(i)], dtype=np.int64)
+        except Exception:  # a chunk failing its checksum is not counted
+            continue
+        members += 1
+    return {"region": attrs["region"], "size": size, "done": members, "seed": attrs["seed"],
+            "method": attrs.get("method"), "frostline_version": attrs.get("frostline_version"),
+            "mean_height": float(total.mean() / members) if members else float("nan")}
+
+
 class _ProgressLine:
     """A one-line progress report on stderr (members done, rate, time left), at most twice a second."""
 

@@ -4,6 +4,7 @@
 // far. Independent of the local moves, so it can check that the moves connect
 // every configuration.
 #pragma once
+#include <functional>
 #include <cstdint>
 #include <string>
 #include <vector>
@@ -18,7 +19,10 @@ struct too_many_configurations : invalid_model {
 };
 
 // Configurations as rows of site heights (n_sites each), in lexicographic order.
-inline std::vector<std::int32_t> all_configurations(const height_model& model, std::int64_t cap) {
+// `keep_going` (optional) is called about every 2^20 steps of the search;
+// returning false stops it (throws `cancelled`), so Ctrl-C works on long searches.
+inline std::vector<std::int32_t> all_configurations(const height_model& model, std::int64_t cap,
+                                                    const std::function<bool()>& keep_going = nullptr) {
     const auto ext = thurston_extremes(model);
     const std::int32_t n = model.n_sites(), step = model.step();
     // constraints touching each site, split into "to an earlier node" (checked when the site is set)
@@ -34,7 +38,9 @@ inline std::vector<std::int32_t> all_configurations(const height_model& model, s
     std::int32_t v = 0;
     if (n == 0) return out;
     h[0] = ext.least[0];
+    std::uint64_t steps = 0;
     for (;;) {
+        if ((++steps & ((std::uint64_t(1) << 20) - 1)) == 0 && keep_going && !keep_going()) throw cancelled();
         bool ok = h[v] <= ext.greatest[v];
         if (ok)
             for (const auto& c : earlier[v])
