@@ -118,3 +118,23 @@ def test_compare_writes_figure_and_table(tmp_path, capsys):
     rows = (tmp_path / "cmp.csv").read_text().strip().splitlines()
     assert rows[0] == "lattice,size,distance,seconds" and len(rows) == 1 + 3 * 2
     assert main(["compare", "--sizes", "2"]) == 2
+
+
+def test_count_of_a_weighted_region_is_its_partition_function(capsys):
+    # a weighted count used to print the unweighted number (980 for the 3 x 3 x 3 box at any q)
+    assert main(["count", "hexagon", "3", "3", "3", "--q", "0.5"]) == 0
+    out = capsys.readouterr().out
+    assert "partition function" in out and "980" not in out.split(":")[-1]
+    assert main(["count", "hexagon", "3", "3", "3"]) == 0
+    assert capsys.readouterr().out.strip() == "980"
+
+
+def test_compare_table_is_valid_csv():
+    import csv
+    import io
+
+    from frostline.analysis.compare import ComparisonRow, table
+
+    rows = [ComparisonRow("square ice, domain wall", 30, 0.1234, 1.5, None, [], None, 1.0)]
+    parsed = list(csv.reader(io.StringIO(table(rows))))
+    assert parsed[1] == ["square ice, domain wall", "30", "0.1234", "1.500"]

@@ -149,7 +149,7 @@ def _parser() -> argparse.ArgumentParser:
                     "sample, its density map, its empirical frozen boundary and the published arctic curve; writes "
                     "PREFIX.png, PREFIX.pdf and PREFIX.csv (distances in scaled units).")
     compare.add_argument("--sizes", type=int, nargs="+", default=[30, 60, 100], help="sizes n (default 30 60 100)")
-    compare.add_argument("--seed", type=int, default=2026)
+    compare.add_argument("--seed", type=int, default=2026, help="seed of every sample (default 2026)")
     compare.add_argument("--prefix", type=Path, default=Path("frostline-compare"),
                          help="output files PREFIX.png, PREFIX.pdf, PREFIX.csv (default ./frostline-compare)")
     show = commands.add_parser("show", help="print the record of a saved sample and optionally draw it")
@@ -206,6 +206,10 @@ def _check_outputs(picture: Optional[Path], output: Optional[Path], force: bool 
     from .plot import FORMATS
 
     if picture is not None:
+        import importlib.util
+
+        if importlib.util.find_spec("matplotlib") is None:
+            raise ValueError("pictures need matplotlib: pip install 'frostline[plot]' (nothing was sampled)")
         if picture.suffix.lower() not in FORMATS:
             raise ValueError(f"picture format {picture.suffix or '(none)'!r} is not supported; use one of "
                              f"{', '.join(FORMATS)}")
@@ -277,10 +281,30 @@ def _ensemble(args) -> int:
     return 0
 
 
+def _is_weighted(region) -> bool:
+    """Whether the region's declared weight keys hold anything but the uniform value."""
+    from .registry import lattices, spec
+
+    if region.lattice not in lattices():
+        return False
+    described = region.describe()
+    for key in spec(region.lattice).weight_keys:
+        value = described.get(key)
+        if value is None or value is False:
+            continue
+        values = value if isinstance(value, (list, tuple)) else [value]
+        if any(v is True or (isinstance(v, (int, float)) and float(v) != 1.0) for v in values):
+            return True
+    return False
+
+
 def _count(args) -> int:
     if hasattr(sys, "set_int_max_str_digits"):
         sys.set_int_max_str_digits(0)  # counts can have millions of digits
     region = _region(args)
+    if _is_weighted(region):  # the count of a weighted region would silently ignore the weights
+        print(f"partition function (weighted sum over configurations): {region.partition_function()}")
+        return 0
     if args.no_limits:  # only the caps this lattice's count() takes
         import inspect
 

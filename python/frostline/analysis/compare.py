@@ -61,10 +61,16 @@ def compare(cases: Sequence[Tuple[str, Callable[[int], Any]]], sizes: Sequence[i
 
 
 def table(rows: Sequence[ComparisonRow]) -> str:
-    """The distances as CSV text: lattice, size, distance (scaled), seconds."""
-    lines = ["lattice,size,distance,seconds"]
-    lines += [f"{r.label},{r.size},{r.distance:.4f},{r.seconds:.3f}" for r in rows]
-    return "\n".join(lines) + "\n"
+    """The distances as CSV text: lattice, size, distance (scaled), seconds (quoted where a label needs it)."""
+    import csv
+    import io
+
+    out = io.StringIO()
+    writer = csv.writer(out, lineterminator="\n")
+    writer.writerow(["lattice", "size", "distance", "seconds"])
+    for r in rows:
+        writer.writerow([r.label, r.size, f"{r.distance:.4f}", f"{r.seconds:.3f}"])
+    return out.getvalue()
 
 
 def figure(rows: Sequence[ComparisonRow], sizes: Sequence[int]):
