@@ -19,6 +19,7 @@ import numpy as np
 
 import frostline as fl
 from frostline.analysis import curve_distance, density_grid, frozen_boundary, frozen_mask
+from frostline.toolkit import palette
 
 
 def main() -> None:
@@ -34,7 +35,7 @@ def main() -> None:
 
     fig, ax = plt.subplots(figsize=(6, 6))
     print(f"{'gamma':>6} {'q':>8} {'volume/n^3':>11} {'liquid area/n^2':>16} {'distance to ellipse':>20}")
-    for gamma, colour in zip((0.0, 1.0, 2.0, 4.0), ("#1b4965", "#5fa8d3", "#e07a5f", "#9c2a2a")):
+    for gamma, colour in zip((0.0, 1.0, 2.0, 4.0), palette.SERIES):
         q = math.exp(-gamma / n)
         region = fl.lozenge.hexagon(n, n, n, q=q)
         ensemble = region.samples(args.samples, seed=11)

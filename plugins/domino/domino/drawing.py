@@ -5,10 +5,10 @@ from typing import Any, Optional, Sequence
 
 import numpy as np
 
+from frostline.toolkit import palette
 from frostline.toolkit.drawing import frame
 
-#: north, south, east, west: two warm tones for horizontal, two cool for vertical
-CLASS_TONES = ("#d9a441", "#8c4a2f", "#3f6e8c", "#9cc3c9")
+CLASS_TONES = palette.DOMINO_CLASSES  # north, south, east, west: warm horizontal, cool vertical
 
 
 def domino_rectangles(tiles: np.ndarray) -> np.ndarray:
@@ -36,6 +36,6 @@ def draw_dominoes(tiles: np.ndarray, classes: np.ndarray, ax: Any = None, *, ton
     large = len(rects) > 1500
     if edge_width is None:
         edge_width = 0.2 if large else 0.6
-    edges: Any = edge_colour or (colours if large else "#1f1a17")
+    edges: Any = edge_colour or (colours if large else palette.DOMINO_INK)
     ax.add_collection(PolyCollection(list(rects), facecolors=colours, edgecolors=edges, linewidths=edge_width))
     return frame(ax, rects, title)

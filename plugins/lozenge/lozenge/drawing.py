@@ -5,12 +5,12 @@ from typing import Any, Optional, Sequence
 
 import numpy as np
 
+from frostline.toolkit import palette
 from frostline.toolkit.drawing import frame
 
 from .tiles import lozenge_polygons
 
-#: our palette: cube tops pale, the two visible sides in two darker tones
-FACE_TONES = ("#f1e4c3", "#b5774a", "#5b3a2e")
+FACE_TONES = palette.LOZENGE_FACES  # cube tops pale, the two visible sides in two darker tones
 
 
 def draw_lozenges(tiles: np.ndarray, ax: Any = None, *, tones: Sequence[str] = FACE_TONES,
@@ -35,7 +35,7 @@ def draw_lozenges(tiles: np.ndarray, ax: Any = None, *, tones: Sequence[str] = F
     if edge_colour is None:
         # Large tilings: edges in each face's own tone close the hairline gaps
         # between neighbours without greying the picture.
-        edges: Any = colours if large else "#2b1d17"
+        edges: Any = colours if large else palette.LOZENGE_INK
     else:
         edges = edge_colour
     ax.add_collection(PolyCollection(list(polygons), facecolors=colours, edgecolors=edges, linewidths=edge_width))

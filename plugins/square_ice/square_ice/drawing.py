@@ -5,10 +5,11 @@ from typing import Any, Sequence
 
 import numpy as np
 
+from frostline.toolkit import palette
+
 from . import conversions as cv
 
-#: a1, a2, b1, b2, c1, c2: a pair of greens, a pair of ambers, and the c types in ink and rose
-TYPE_TONES = ("#7fa86a", "#c8ddb0", "#d69a3c", "#f1d39a", "#2c3e57", "#c2566b")
+TYPE_TONES = palette.ICE_VERTEX_TYPES  # a1, a2, b1, b2, c1, c2 (frostline.toolkit.palette)
 
 
 def draw_ice(heights: np.ndarray, kind: str = "vertices", ax: Any = None, tones: Sequence[str] = TYPE_TONES,

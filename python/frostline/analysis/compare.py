@@ -17,6 +17,7 @@ from typing import Any, Callable, List, Optional, Sequence, Tuple
 
 import numpy as np
 
+from ..toolkit import palette
 from .boundary import frozen_boundary, near_edge
 from .curves import curve_distance
 from .densities import DensityGrid, density_grid
@@ -87,9 +88,9 @@ def figure(rows: Sequence[ComparisonRow], sizes: Sequence[int]):
         extent = (g.x[0] / r.scale, g.x[-1] / r.scale, g.y[0] / r.scale, g.y[-1] / r.scale)
         ax.imshow(np.ma.masked_invalid(field).T, origin="lower", extent=extent, cmap="bone", vmin=0.25, vmax=1.0)
         for line in r.boundary:
-            ax.plot(line[:, 0], line[:, 1], color="#d9480f", lw=0.9)
+            ax.plot(line[:, 0], line[:, 1], color=palette.MEASURED, lw=0.9)
         closed = np.vstack([r.theory, r.theory[:1]])
-        ax.plot(closed[:, 0], closed[:, 1], color="#4dabf7", lw=0.9, ls="--")
+        ax.plot(closed[:, 0], closed[:, 1], color=palette.THEORY, lw=0.9, ls="--")
         ax.set_title(f"{r.label}, n = {r.size}\ndistance {r.distance:.3f}", fontsize=8)
         ax.set_aspect("equal")
         ax.set_axis_off()
