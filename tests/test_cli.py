@@ -75,7 +75,7 @@ def test_ctrl_c_stops_cleanly():
 def test_domino_commands(tmp_path, capsys):
     drawing = tmp_path / "region.txt"
     drawing.write_text(".##.\n####\n####\n.##.\n")
-    assert main(["count", "picture", str(drawing)]) == 0
+    assert main(["count", "mask", str(drawing)]) == 0
     assert capsys.readouterr().out.strip() == "8"  # the Aztec diamond of order 2 (OEIS A006125)
     assert main(["count", "aztec", "5"]) == 0
     assert capsys.readouterr().out.strip() == "32768"  # OEIS A006125
@@ -138,3 +138,17 @@ def test_compare_table_is_valid_csv():
     rows = [ComparisonRow("square ice, domain wall", 30, 0.1234, 1.5, None, [], None, 1.0)]
     parsed = list(csv.reader(io.StringIO(table(rows))))
     assert parsed[1] == ["square ice, domain wall", "30", "0.1234", "1.500"]
+
+
+def test_old_picture_shape_still_works_with_a_warning(tmp_path, capsys):
+    import frostline as fl
+
+    drawing = tmp_path / "region.txt"
+    drawing.write_text("##\n##\n")
+    with pytest.warns(fl.FrostlineWarning, match="now called 'mask'"):
+        assert main(["count", "picture", str(drawing)]) == 0
+    assert capsys.readouterr().out.strip() == "2"
+    # the renamed shape and the --picture option no longer read alike
+    out = tmp_path / "r.png"
+    assert main(["sample", "mask", str(drawing), "--seed", "1", "--picture", str(out)]) == 0
+    assert out.exists()

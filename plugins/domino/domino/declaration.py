@@ -17,6 +17,16 @@ def _aztec(order: int, vertical_weight: Optional[float] = None, two_periodic: Op
                          two_periodic_weights=tuple(two_periodic) if two_periodic else None)
 
 
+def _deprecated_picture(file: Path):
+    import warnings
+
+    from frostline.errors import FrostlineWarning
+
+    warnings.warn("the shape 'picture' is now called 'mask'; 'picture' goes in the next release",
+                  FrostlineWarning, stacklevel=2)
+    return from_picture(Path(file).read_text())
+
+
 LATTICE = LatticeSpec(
     name="domino",
     summary="domino tilings of the square grid (Aztec diamonds, rectangles, any region)",
@@ -30,10 +40,14 @@ LATTICE = LatticeSpec(
               "Domino tilings of the Aztec diamond of order N (2N(N+1) cells)."),
         Shape("rectangle", "domino tilings of a ROWS x COLUMNS rectangle", rectangle,
               (Argument("rows", "number of rows"), Argument("columns", "number of columns"))),
-        Shape("picture", "domino tilings of a region drawn in a text file",
+        Shape("mask", "domino tilings of a region drawn in a text file",
               lambda file: from_picture(Path(file).read_text()),
               (Argument("file", "the text file with the drawing", type=Path),),
               "Domino tilings of a region drawn as text: '#' a cell, '.' none, one line per row."),
+        # the old name, kept for one release: it read like the --picture option
+        Shape("picture", "deprecated name of the shape 'mask' (kept for one release)", _deprecated_picture,
+              (Argument("file", "the text file with the drawing", type=Path),),
+              "Deprecated: use 'mask'. Domino tilings of a region drawn as text."),
     ),
     closed_forms={"aztec_count": aztec_count, "rectangle_count": rectangle_count},
     tile_classes=TILE_CLASSES,
