@@ -26,7 +26,7 @@ def test_huge_aztec_diamond_is_refused_before_its_mask():
 
 
 def test_rectangle_respects_the_limit(monkeypatch):
-    monkeypatch.setenv("FROSTLINE_MEMORY_LIMIT", "1e8")
+    monkeypatch.setenv("FROSTLINE_MEMORY_LIMIT", "2e7")
     _refused_fast(lambda: fl.domino.rectangle(1000, 1000))
     _refused_fast(lambda: fl.domino.aztec_diamond(1000))
     assert fl.domino.aztec_diamond(50).count() == 2 ** (50 * 51 // 2)

@@ -48,9 +48,11 @@ def as_mask(mask: Any) -> np.ndarray:
     return m
 
 
-#: memory a region takes per corner of its grid (masks, heights, extremes, kernel layout): the estimate
-#: checked before anything proportional to the grid is allocated
-BYTES_PER_CORNER = 200
+#: memory per corner of the grid: the region itself (masks, boundary), checked before it is built, and
+#: the sampling engine (generic model, Thurston's extremes, kernel layout), checked before that is built.
+#: Measured peaks (tests/test_memory_estimates.py): about 20-31 and 380 bytes per corner.
+BYTES_PER_CORNER = 36
+ENGINE_BYTES_PER_CORNER = 450
 
 
 class DominoRegion(Region):
@@ -129,6 +131,7 @@ class DominoRegion(Region):
         g = self.geometry
         R, C = g.shape
         width = C + 1
+        check_memory(ENGINE_BYTES_PER_CORNER * (R + 1) * (C + 1), f"the sampling engine of a {R}x{C} mask")
         families = (g.horizontal, g.vertical)
         node, interior, boundary_points = self._node, self._interior, self._boundary_points
         inner_t = np.concatenate([f.tail[f.inner] for f in families])

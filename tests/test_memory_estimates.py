@@ -1,0 +1,63 @@
+"""Memory estimates hold: each is at least the measured peak and at most twice it.
+
+Each case runs in a fresh subprocess, which reports the increase of its peak
+resident memory (VmHWM of /proc/self/status: unlike ru_maxrss it starts
+afresh at exec, so the parent's size does not leak in) while building the
+object, next to the estimate the code checks before allocating. Sizes are chosen so the peaks are 100 MB
+and more (smaller ones are dominated by the allocator's own slack).
+"""
+from __future__ import annotations
+
+import json
+import subprocess
+import sys
+import textwrap
+
+import pytest
+
+pytestmark = pytest.mark.skipif(not sys.platform.startswith("linux"), reason="reads /proc/self/status")
+
+CASES = {
+    "domino region": ("fl.domino.aztec_diamond(1200)", "36 * 2401 ** 2"),
+    "domino engine": ("fl.domino.aztec_diamond(600)._engine()", "450 * 1201 ** 2"),
+    "square ice": ("fl.square_ice.domain_wall(900)", "640 * 901 ** 2"),
+}
+
+
+@pytest.mark.parametrize("name", sorted(CASES))
+def test_estimate_bounds_the_measured_peak(name):
+    build, estimate = CASES[name]
+    script = textwrap.dedent(f"""
+        import json
+        import frostline as fl
+        def high_water():
+            for line in open("/proc/self/status"):
+                if line.startswith("VmHWM:"):
+                    return int(line.split()[1]) * 1024
+        fl.domino.aztec_diamond(2)._engine(); fl.square_ice.domain_wall(2)  # imports and first-use caches
+        before = high_water()
+        value = {build}
+        print(json.dumps({{"peak": high_water() - before, "estimate": {estimate}}}))
+    """)
+    out = subprocess.run([sys.executable, "-c", script], capture_output=True, text=True, check=True).stdout
+    figures = json.loads(out.strip().splitlines()[-1])
+    assert figures["peak"] > 50e6  # the case is big enough to measure
+    assert figures["peak"] <= figures["estimate"] <= 2.0 * figures["peak"], figures
+
+
+def test_rectangles_fit_the_same_estimate():
+    script = textwrap.dedent("""
+        import json
+        import frostline as fl
+        def high_water():
+            for line in open("/proc/self/status"):
+                if line.startswith("VmHWM:"):
+                    return int(line.split()[1]) * 1024
+        fl.domino.rectangle(2, 2)
+        before = high_water()
+        fl.domino.rectangle(2000, 2000)
+        print(json.dumps({"peak": high_water() - before, "estimate": 36 * 2001 ** 2}))
+    """)
+    figures = json.loads(subprocess.run([sys.executable, "-c", script], capture_output=True, text=True,
+                                        check=True).stdout.strip().splitlines()[-1])
+    assert figures["peak"] <= figures["estimate"] <= 2.0 * figures["peak"], figures
