@@ -121,3 +121,11 @@ def test_command_line_count_caps_and_no_limits(capsys):
     assert capsys.readouterr().out.strip() == str(rectangle_count(30, 30))
     assert main(["count", "hexagon", "3", "3", "3", "--no-limits"]) == 0
     assert capsys.readouterr().out.strip() == "980"
+
+
+def test_budget_must_be_a_number():
+    notched = np.ones((6, 6), bool)
+    notched[0, :2] = False
+    notched[-1, -2:] = False
+    with pytest.raises(TypeError, match="budget"):
+        fl.domino.from_mask(notched).count(budget="x")

@@ -141,3 +141,17 @@ def test_show_summarises_a_store(tmp_path, capsys):
     other.mkdir()
     assert main(["show", str(other)]) == 2
     assert "not a frostline ensemble store" in capsys.readouterr().err
+
+
+def test_worker_cache_tells_regions_apart_by_their_arrays():
+    # two regions with one description ({"shape": "triangles"}) but different triangles
+    from frostline.ensemble import _payload, _remote_member
+
+    first = fl.lozenge.from_triangles(fl.lozenge.hexagon_region(2, 2, 2).triangles)
+    second = fl.lozenge.from_triangles(fl.lozenge.trapezoid(5, 3).triangles)
+    assert first.describe() == second.describe()
+    root = fl.SeedRecord.from_dict({"entropy": 1, "spawn_key": [], "pool_size": 4}).as_dict()
+    _, a, _ = _remote_member(_payload(first), root, 0, "auto")
+    _, b, _ = _remote_member(_payload(second), root, 0, "auto")
+    assert a.shape == first.sample(seed=0).heights.shape
+    assert b.shape == second.sample(seed=0).heights.shape

@@ -67,3 +67,12 @@ def test_kernel_samples_follow_the_uniform_law(name):
 def test_weighted_regions_keep_the_generic_engine():
     region = fl.lozenge.trapezoid(6, 4, q=0.8)
     assert region.exact_methods()["cftp"].kernel == "generic"
+
+
+def test_overlapping_runs_are_refused():
+    from frostline import _core
+
+    flat = np.zeros(64, dtype=np.int32)
+    for runs in ([[2, 2, 4], [2, 3, 5]], [[3, 2, 3], [2, 2, 3]]):
+        with pytest.raises(ValueError, match="disjoint"):
+            _core.lozenge.point_sample(8, 8, 0, np.array(runs, dtype=np.int32), flat, flat, 1, 2)

@@ -28,6 +28,11 @@ public:
         for (auto& run : runs_) {
             if (run.row <= 0 || run.row >= rows_ || run.first <= 0 || run.last >= columns_ || run.first > run.last)
                 throw invalid_model("a run of free corners must lie strictly inside the corner grid");
+            if (&run != &runs_.front()) {  // in (row, column) order and disjoint: no cell in two runs
+                const auto& before = *(&run - 1);
+                if (run.row < before.row || (run.row == before.row && run.first <= before.last))
+                    throw invalid_model("runs of free corners must be disjoint and in row-major order");
+            }
             run.first_site = site;
             site += run.last - run.first + 1;
         }

@@ -1,6 +1,7 @@
 // The split-row layout of the plane-partition box, shared by the scalar box
-// sweeper and the vector row kernels (a plain aggregate: safe to share between
-// translation units compiled with different instruction sets).
+// sweeper and the vector row kernels (a plain aggregate and nothing else: safe
+// to share between translation units compiled with different instruction sets;
+// box_kernel.hpp makes one).
 //
 // Heights of an a x b plane partition sit in (a + 2) blocks of two half-rows
 // of `half_width` = (b + 1) / 2 + 2 entries: block r + 1 holds row r, its even
@@ -23,9 +24,5 @@ struct box_geometry {
     std::int32_t a, b, c;
     std::int64_t half_width;
 };
-
-inline box_geometry make_box_geometry(std::int32_t a, std::int32_t b, std::int32_t c) {
-    return box_geometry{a, b, c, static_cast<std::int64_t>(b + 1) / 2 + 2};
-}
 
 }  // namespace frostline::lozenge

@@ -25,7 +25,8 @@ namespace frostline::lozenge {
 
 class box_layout {
 public:
-    box_layout(std::int32_t a, std::int32_t b, std::int32_t c) : g_(make_box_geometry(a, b, c)) {}
+    box_layout(std::int32_t a, std::int32_t b, std::int32_t c)
+        : g_{a, b, c, static_cast<std::int64_t>(b + 1) / 2 + 2} {}
 
     const box_geometry& geometry() const { return g_; }
     std::int32_t rows() const { return g_.a; }

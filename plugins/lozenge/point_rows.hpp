@@ -36,6 +36,11 @@ public:
             if (run.row <= 0 || run.row >= rows - 1 || run.first <= 0 || run.last >= columns - 1 ||
                 run.first > run.last)
                 throw invalid_model("a run of free lattice points must lie strictly inside the grid");
+            if (&run != &runs_.front()) {  // in (row, column) order and disjoint: no cell in two runs
+                const auto& before = *(&run - 1);
+                if (run.row < before.row || (run.row == before.row && run.first <= before.last))
+                    throw invalid_model("runs of free lattice points must be disjoint and in row-major order");
+            }
             run.first_site = site;
             site += run.last - run.first + 1;
         }

@@ -53,7 +53,21 @@ def _rebuild(payload: Tuple[str, Dict[str, Any], Dict[str, np.ndarray]]) -> Any:
     return declared.region_from_record(description, arrays)
 
 
-_REGIONS: Dict[int, Any] = {}  # per worker process: the rebuilt region, by payload identity
+_REGIONS: Dict[str, Any] = {}  # per worker process: the rebuilt region, by the digest of its payload
+
+
+def _payload_key(payload: Tuple[str, Dict[str, Any], Dict[str, np.ndarray]]) -> str:
+    """A digest of everything that defines the region: lattice, description and every array (values too)."""
+    import hashlib
+    import json
+
+    lattice, description, arrays = payload
+    digest = hashlib.sha256(json.dumps([lattice, description], sort_keys=True, default=str).encode())
+    for name in sorted(arrays):
+        a = np.ascontiguousarray(arrays[name])
+        digest.update(f"{name}:{a.dtype.str}:{a.shape}".encode())
+        digest.update(a.tobytes())
+    return digest.hexdigest()
 
 
 def _remote_member(payload: Tuple[str, Dict[str, Any], Dict[str, np.ndarray]], root: Dict[str, Any], i: int,
@@ -61,9 +75,10 @@ def _remote_member(payload: Tuple[str, Dict[str, Any], Dict[str, np.ndarray]], r
     """Member i, computed in a worker process (or on a cluster worker): (i, heights, info)."""
     from .seeding import SeedRecord
 
-    key = hash((payload[0], repr(sorted(payload[1].items()))))
+    key = _payload_key(payload)
     region = _REGIONS.get(key)
     if region is None:
+        _REGIONS.clear()  # one region at a time per worker: the cache never grows
         region = _REGIONS[key] = _rebuild(payload)
     sample = region.sample(child_sequence(SeedRecord.from_dict(root).sequence(), i), method=method)
     return i, np.asarray(sample.heights), sample.info.as_dict()
@@ -153,11 +168,13 @@ def _open_store(store: Any, region: Any, size: int, root: np.random.SeedSequence
             raise ValueError(f"the store at {store} holds another ensemble (different: {', '.join(different)}); "
                              "use a new store, or the same region, seed, size, method and frostline version")
         return group
+    # no identity record: a new store, or one whose first run died before writing it; start it afresh
     group.create_array("heights", shape=(size, *shape), chunks=(1, *shape), dtype="int32", fill_value=0,
-                       compressors=_codecs())
+                       compressors=_codecs(), overwrite=True)
     group.create_array("seconds", shape=(size,), chunks=(1,), dtype="float64", fill_value=0.0,
-                       compressors=_codecs())
-    group.create_array("done", shape=(size,), chunks=(1,), dtype="uint8", fill_value=0, compressors=_codecs())
+                       compressors=_codecs(), overwrite=True)
+    group.create_array("done", shape=(size,), chunks=(1,), dtype="uint8", fill_value=0, compressors=_codecs(),
+                       overwrite=True)
     group.attrs.update(identity)
     return group
 

@@ -32,15 +32,16 @@ namespace frostline {
 class thread_team {
 public:
     explicit thread_team(int size) : size_(size < 1 ? 1 : size) {
-        for (int part = 1; part < size_; ++part) workers_.emplace_back([this, part] { work(part); });
+        try {
+            for (int part = 1; part < size_; ++part) workers_.emplace_back([this, part] { work(part); });
+        } catch (...) {  // a thread that could not start: stop and join those that did, then report
+            stop_workers();
+            throw;
+        }
     }
     thread_team(const thread_team&) = delete;
     thread_team& operator=(const thread_team&) = delete;
-    ~thread_team() {
-        stop_.store(true, std::memory_order_relaxed);
-        generation_.fetch_add(1, std::memory_order_release);
-        for (auto& t : workers_) t.join();
-    }
+    ~thread_team() { stop_workers(); }
 
     int size() const { return size_; }
 
@@ -79,6 +80,13 @@ public:
     }
 
 private:
+    void stop_workers() {
+        stop_.store(true, std::memory_order_relaxed);
+        generation_.fetch_add(1, std::memory_order_release);
+        for (auto& t : workers_) t.join();
+        workers_.clear();
+    }
+
     void work(int part) {
         std::uint64_t seen = 0;
         for (;;) {

@@ -88,8 +88,9 @@ def count_region(region, budget: Optional[float] = None, max_digits: Optional[in
 
     ``budget`` (seconds) and ``max_digits`` cap the cost (see frostline.exact.budget; None: no cap).
     """
-    from frostline.exact.budget import check_digits
+    from frostline.exact.budget import check_budget_argument, check_digits
 
+    budget = check_budget_argument(budget)
     shape = region._description.get("shape")
     if shape == "aztec diamond":
         order = region._description["order"]
