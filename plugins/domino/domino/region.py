@@ -245,15 +245,19 @@ class DominoRegion(Region):
         # A valid tiling (checked above) has one height function: walk down the
         # columns from the boundary, whose heights are known. Every interior
         # corner's upper neighbour is a boundary or an interior corner of the row above.
-        step = self.geometry.step_down(crossed_v)
-        heights = np.zeros((R + 1) * (C + 1), dtype=np.int64)
+        return self._scan_columns(self.geometry.step_down(crossed_v), np.int64).astype(np.int32)
+
+    def _scan_columns(self, step: np.ndarray, dtype: Any) -> np.ndarray:
+        """Corner heights from the boundary down the columns, given h(r + 1, c) - h(r, c) on every vertical edge."""
+        R, C = self.geometry.shape
+        heights = np.zeros((R + 1) * (C + 1), dtype=dtype)
         heights[self._boundary_points] = self._boundary_heights
         heights = heights.reshape(R + 1, C + 1)
         interior = self.geometry.corner_interior
         for r in range(1, R):
             cols = interior[r]
             heights[r, cols] = heights[r - 1, cols] + step[r - 1, cols]
-        return heights.astype(np.int32)
+        return heights
 
     def expected_heights(self, tiles: np.ndarray, probabilities: np.ndarray) -> np.ndarray:
         """Expected corner heights (float, layout of ``Sample.heights``; NaN outside) from placement probabilities.
@@ -268,14 +272,7 @@ class DominoRegion(Region):
         right = np.maximum(t[horizontal, 0, 1], t[horizontal, 1, 1])   # the edge left of the right cell
         crossed = np.zeros((R, C + 1))
         crossed[t[horizontal, 0, 0], right] = np.asarray(probabilities, dtype=float)[horizontal]
-        step = self.geometry.expected_step_down(crossed)
-        heights = np.zeros((R + 1) * (C + 1))
-        heights[self._boundary_points] = self._boundary_heights
-        heights = heights.reshape(R + 1, C + 1)
-        interior = self.geometry.corner_interior
-        for r in range(1, R):
-            cols = interior[r]
-            heights[r, cols] = heights[r - 1, cols] + step[r - 1, cols]
+        heights = self._scan_columns(self.geometry.expected_step_down(crossed), float)
         return np.where(self.corner_mask, heights, np.nan)
 
     def height_field(self, heights: np.ndarray) -> np.ndarray:
