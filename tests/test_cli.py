@@ -152,3 +152,13 @@ def test_old_picture_shape_still_works_with_a_warning(tmp_path, capsys):
     out = tmp_path / "r.png"
     assert main(["sample", "mask", str(drawing), "--seed", "1", "--picture", str(out)]) == 0
     assert out.exists()
+
+
+def test_regions_are_described_in_words(capsys, tmp_path):
+    import frostline as fl
+
+    assert fl.lozenge.hexagon(3, 4, 5, q=0.9).summary() == "lozenge box: sides 3 x 4 x 5, q = 0.9"
+    assert fl.domino.rectangle(4, 6).summary() == "domino rectangle: rows 4, columns 6"
+    assert main(["sample", "square_ice", "5", "--seed", "2"]) == 0
+    out = capsys.readouterr().out
+    assert "exact sample of square ice domain wall: n 5" in out and "SquareIceRegion(" not in out

@@ -232,7 +232,7 @@ def _sample(args) -> int:
     started = time.perf_counter()
     sample = region.sample(seed=args.seed, method=args.method, progress=progress)
     progress.finish()
-    print(f"exact sample of {region!r} in {time.perf_counter() - started:.3g} s")
+    print(f"exact sample of {region.summary()} in {time.perf_counter() - started:.3g} s")
     _print_info(sample)
     _write(sample, args.picture, getattr(args, "output", None), _style(args), args.force)
     return 0
@@ -247,7 +247,9 @@ def _write(sample, picture: Optional[Path], output: Optional[Path], style: Optio
     if picture is not None:
         from . import plot
 
-        plot.save(sample, picture, **(style or {}))
+        style = dict(style or {})
+        style.setdefault("title", f"{sample.region.summary()}; seed {sample.info.seed.entropy}")
+        plot.save(sample, picture, **style)
         print(f"picture written to {picture}")
 
 
@@ -272,7 +274,7 @@ def _ensemble(args) -> int:
         if client is not None:
             client.close()
     mean = e.mean_heights
-    print(f"ensemble of {e.size} exact samples of {region!r} in {time.perf_counter() - started:.3g} s")
+    print(f"ensemble of {e.size} exact samples of {region.summary()} in {time.perf_counter() - started:.3g} s")
     if args.store is not None:
         print(f"  store           {args.store}")
     print(f"  mean height     {float(np.nanmean(mean)):.6g} (over the points)")
@@ -328,7 +330,7 @@ def _density(args) -> int:
     region = _region(args)
     densities = class_densities(region)
     plot.save_densities(densities, args.picture, title=repr(region))
-    print(f"exact densities of {region!r} written to {args.picture}")
+    print(f"exact densities of {region.summary()} written to {args.picture}")
     return 0
 
 
@@ -370,7 +372,7 @@ def _show(args) -> int:
         return 0
     _check_outputs(args.picture, None)
     sample = load(args.file)
-    print(f"{args.file}: {sample.region!r}")
+    print(f"{args.file}: {sample.region.summary()}")
     _print_info(sample)
     _write(sample, args.picture, None)
     return 0
@@ -385,7 +387,7 @@ def _demo(args) -> int:
         if spec.demo is None:
             continue
         for label, region, title, note in spec.demo(args.size, args.q):
-            print(f"\n{label}: {region!r}")
+            print(f"\n{label}: {region.summary()}")
             sample = region.sample(seed=args.seed)
             _print_info(sample)
             if note is not None:

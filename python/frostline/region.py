@@ -93,6 +93,29 @@ class Region(abc.ABC):
         """Plain-data (JSON-ready) description of the region and its weights."""
         return {"lattice": self.lattice}
 
+    def summary(self) -> str:
+        """The region in words, from :meth:`describe` (for captions and the command line).
+
+        For example ``"lozenge box: sides 3 x 4 x 5, q = 0.9"``.
+        """
+        described = dict(self.describe())
+        lattice = str(described.pop("lattice", self.lattice)).replace("_", " ")
+        shape = described.pop("shape", None)
+        described.pop("weighted", None)
+        parts = []
+        for key, value in described.items():
+            name = key.replace("_", " ")
+            if isinstance(value, (list, tuple)):
+                joiner = " x " if key == "sides" else ", "  # box sides read as dimensions
+                text = joiner.join(f"{v:g}" if isinstance(v, float) else str(v) for v in value)
+                parts.append(f"{name} {text}")
+            elif isinstance(value, float):
+                parts.append(f"{name} = {value:g}")
+            else:
+                parts.append(f"{name} {value}")
+        head = f"{lattice} {shape}" if shape else lattice
+        return f"{head}: {', '.join(parts)}" if parts else head
+
     def record_arrays(self) -> Dict[str, np.ndarray]:
         """Arrays that, with :meth:`describe`, rebuild the region (saved in sample files)."""
         return {}
