@@ -129,3 +129,17 @@ def test_budget_must_be_a_number():
     notched[-1, -2:] = False
     with pytest.raises(TypeError, match="budget"):
         fl.domino.from_mask(notched).count(budget="x")
+
+
+def test_long_exact_determinants_report_progress():
+    from frostline.progress import exact_progress
+
+    seen = []
+    with exact_progress(lambda stage, done, total: seen.append((stage, done, total))):
+        fl.lozenge.hexagon_region(5, 4, 3).count()
+    assert seen and seen[0][1] == 0 and all(total >= 1 for _, _, total in seen)
+    assert [done for _, done, _ in seen] == list(range(len(seen)))
+    # outside the block nothing is reported
+    reported = len(seen)
+    fl.lozenge.hexagon_region(2, 2, 2).count()
+    assert len(seen) == reported

@@ -301,8 +301,19 @@ def _is_weighted(region) -> bool:
 
 
 def _count(args) -> int:
+    from .progress import StderrProgress, exact_progress
+
     if hasattr(sys, "set_int_max_str_digits"):
         sys.set_int_max_str_digits(0)  # counts can have millions of digits
+    progress = StderrProgress("counting")
+    try:
+        with exact_progress(progress.exact):
+            return _count_region(args)
+    finally:
+        progress.finish()
+
+
+def _count_region(args) -> int:
     region = _region(args)
     if _is_weighted(region):  # the count of a weighted region would silently ignore the weights
         print(f"partition function (weighted sum over configurations): {region.partition_function()}")
@@ -329,7 +340,7 @@ def _density(args) -> int:
     _check_outputs(args.picture, None)
     region = _region(args)
     densities = class_densities(region)
-    plot.save_densities(densities, args.picture, title=repr(region))
+    plot.save_densities(densities, args.picture, title=region.summary())
     print(f"exact densities of {region.summary()} written to {args.picture}")
     return 0
 

@@ -3,7 +3,29 @@ from __future__ import annotations
 
 import sys
 import time
-from typing import Optional, TextIO
+from contextlib import contextmanager
+from contextvars import ContextVar
+from typing import Callable, Iterator, Optional, TextIO
+
+#: where long exact computations (determinants) report (stage, done, total); None: nowhere
+_EXACT_HOOK: ContextVar[Optional[Callable[[str, int, int], None]]] = ContextVar("frostline_exact_hook", default=None)
+
+
+@contextmanager
+def exact_progress(hook: Callable[[str, int, int], None]) -> Iterator[None]:
+    """Within the block, long exact computations call ``hook(stage, done, total)`` as they go."""
+    token = _EXACT_HOOK.set(hook)
+    try:
+        yield
+    finally:
+        _EXACT_HOOK.reset(token)
+
+
+def report(stage: str, done: int, total: int) -> None:
+    """Report progress of an exact computation to the hook of :func:`exact_progress`, if any."""
+    hook = _EXACT_HOOK.get()
+    if hook is not None:
+        hook(stage, done, total)
 
 
 class StderrProgress:
@@ -37,6 +59,14 @@ class StderrProgress:
         self._last = now
         self._emit(f"{self.stage}: start time {start_time} sweeps back, {site_updates:.3g} site updates, "
                    f"{now - self._began:.1f} s elapsed")
+
+    def exact(self, stage: str, done: int, total: int) -> None:
+        """A hook for :func:`exact_progress`: ``stage: done of total, S s elapsed``."""
+        now = time.perf_counter()
+        if now - self._began < self.after or now - self._last < self.every:
+            return
+        self._last = now
+        self._emit(f"{stage}: {done} of {total}, {now - self._began:.1f} s elapsed")
 
     def _emit(self, text: str) -> None:
         end = "\r" if self.stream.isatty() else "\n"

@@ -133,7 +133,11 @@ def integer_determinant(matrix: np.ndarray, *, budget: Optional[float] = None) -
     residues: List[int] = []
     moduli: List[int] = []
     bits = 0.0
+    from ..progress import report
+
+    needed = int(bound_bits / 30.99) + 1  # primes just below 2^31 carry about 31 bits each
     for p in _primes_below(2**31):
+        report("exact determinant, primes done", len(residues), needed)
         residues.append(_det_mod(a, p))
         moduli.append(p)
         bits += math.log2(p)
