@@ -155,3 +155,11 @@ def test_worker_cache_tells_regions_apart_by_their_arrays():
     _, b, _ = _remote_member(_payload(second), root, 0, "auto")
     assert a.shape == first.sample(seed=0).heights.shape
     assert b.shape == second.sample(seed=0).heights.shape
+
+
+def test_huge_ensembles_are_refused_before_allocating(monkeypatch):
+    monkeypatch.setenv("FROSTLINE_MEMORY_LIMIT", "1e8")
+    start = time.perf_counter()
+    with pytest.raises(fl.RegionTooLargeError, match="ensemble of 100000000 members"):
+        fl.ensemble(REGION, 10**8, seed=1)
+    assert time.perf_counter() - start < 2.0

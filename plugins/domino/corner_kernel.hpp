@@ -16,6 +16,7 @@
 
 #include "frostline/errors.hpp"
 #include "corner_run.hpp"
+#include "frostline/grid_runs.hpp"
 #include "frostline/random.hpp"
 
 namespace frostline::domino {
@@ -24,19 +25,7 @@ class corner_layout {
 public:
     corner_layout(std::int32_t rows, std::int32_t columns, std::vector<corner_run> runs)
         : rows_(rows), columns_(columns), runs_(std::move(runs)) {
-        std::int64_t site = 0;
-        for (auto& run : runs_) {
-            if (run.row <= 0 || run.row >= rows_ || run.first <= 0 || run.last >= columns_ || run.first > run.last)
-                throw invalid_model("a run of free corners must lie strictly inside the corner grid");
-            if (&run != &runs_.front()) {  // in (row, column) order and disjoint: no cell in two runs
-                const auto& before = *(&run - 1);
-                if (run.row < before.row || (run.row == before.row && run.first <= before.last))
-                    throw invalid_model("runs of free corners must be disjoint and in row-major order");
-            }
-            run.first_site = site;
-            site += run.last - run.first + 1;
-        }
-        n_sites_ = site;
+        n_sites_ = number_runs(runs_, rows_, columns_, "corners");  // corner rows 0..rows, columns 0..columns
     }
 
     std::int32_t rows() const { return rows_; }

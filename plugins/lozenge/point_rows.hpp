@@ -10,6 +10,7 @@
 
 #include "frostline/errors.hpp"
 #include "frostline/grid_run.hpp"
+#include "frostline/grid_runs.hpp"
 #include "frostline/random.hpp"
 #include "frostline/simd.hpp"
 #include "frostline/split_grid.hpp"
@@ -31,20 +32,7 @@ class point_layout {
 public:
     point_layout(std::int32_t rows, std::int32_t columns, std::int32_t shift, std::vector<grid_run> runs)
         : grid_(rows, columns, 3), shift_(((shift % 3) + 3) % 3), runs_(std::move(runs)) {
-        std::int64_t site = 0;
-        for (auto& run : runs_) {  // strictly inside: every neighbour of a free point is on the grid
-            if (run.row <= 0 || run.row >= rows - 1 || run.first <= 0 || run.last >= columns - 1 ||
-                run.first > run.last)
-                throw invalid_model("a run of free lattice points must lie strictly inside the grid");
-            if (&run != &runs_.front()) {  // in (row, column) order and disjoint: no cell in two runs
-                const auto& before = *(&run - 1);
-                if (run.row < before.row || (run.row == before.row && run.first <= before.last))
-                    throw invalid_model("runs of free lattice points must be disjoint and in row-major order");
-            }
-            run.first_site = site;
-            site += run.last - run.first + 1;
-        }
-        n_sites_ = site;
+        n_sites_ = number_runs(runs_, rows - 1, columns - 1, "lattice points");  // grid rows 0..rows - 1
     }
 
     const split_grid& grid() const { return grid_; }

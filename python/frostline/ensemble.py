@@ -230,7 +230,8 @@ def ensemble(region: Any, size: int, seed: SeedLike = None, *, store: Any = None
     shape = tuple(np.asarray(region.extreme_heights()[0]).shape)
     from ._limits import check_memory
 
-    check_memory(3 * 8 * int(np.prod(shape)) + 10**6, "the ensemble's running sums")
+    check_memory(3 * 8 * int(np.prod(shape)) + 64 * size + 10**6,
+                 f"an ensemble of {size} members (running sums, and the list of members still to draw)")
     group = _open_store(store, region, size, root, method, shape) if store is not None else None
     done = _done_members(group, size) if group is not None else np.zeros(size, dtype=bool)
     sums = _Sums(np.zeros(shape, dtype=np.int64), np.zeros(shape, dtype=np.int64))
