@@ -432,6 +432,15 @@ class DominoRegion(Region):
 
         return aztec_curve(d["order"], d.get("vertical_weight", 1.0), m)
 
+    def limit_setup(self, resolution: int = 1):
+        """The variational problem on the region's own cells (uniform weights; see :mod:`.limit`)."""
+        if resolution != 1:
+            raise ValueError("domino regions are solved on their own cells (resolution 1): a mask refined m times "
+                             "has other boundary heights, hence another limit shape")
+        from .limit import limit_setup
+
+        return limit_setup(self)
+
     def heat_bath_rule(self):
         """(generic model, 1, rule): uniform, or the two-point rule of the edge weights."""
         return self._engine()["model"], 1.0, self._engine()["rule"]

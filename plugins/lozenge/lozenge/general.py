@@ -304,6 +304,12 @@ class LozengeRegion(LozengeTiles, Region):
             return hexagon_ellipse(a, b, c, m=m)
         raise ValueError(f"no published arctic curve is built in for {self!r}")
 
+    def limit_setup(self, resolution: int = 1):
+        """The variational problem on the region's triangles, refined ``resolution`` times (see :mod:`.limit`)."""
+        from .limit import limit_setup, refined_setup
+
+        return limit_setup(self) if resolution == 1 else refined_setup(self, resolution)
+
     def heat_bath_rule(self):
         """(generic model, q, None): the q^volume heat bath on lattice-point heights."""
         return self._model, self.q, None

@@ -128,6 +128,39 @@ class HexagonRegion(LozengeTiles, Region):
 
         return hexagon_ellipse(self.a, self.b, self.c, m)
 
+    def limit_setup(self, resolution: int = 1):
+        """The variational problem of the same hexagon as a general region, with heights as column heights.
+
+        ``L.heights`` is then the predicted plane partition (float, shape (a, b)).
+        The lattice-point solution counts m(x, y) cubes on the line of cubes
+        (x + t, y - 1 - t, t) seen at lattice point (x, y). The cubes of a
+        stack on that line fill an initial run of the ones inside the box, and
+        cube (k, l, z) is the j-th of them, j = min(z, k, b - 1 - l), so it is
+        present when m(k - z, l + 1 + z) > j: the column at floor cell (k, l)
+        holds sum_z clip(m(k - z, l + 1 + z) - j, 0, 1) cubes (exact for a
+        tiling, a soft count for the limit shape), stored at [k, b - 1 - l]
+        (:func:`.tiles.tiles_of_plane_partition`).
+        """
+        general = self._general()
+        setup = general.limit_setup(resolution)
+        least = general.heights_from_model(general.model.extremes()[0]).astype(float)
+        i0, j0 = general.origin
+        a, b, c = self.a, self.b, self.c
+        check_memory(24 * a * b * c + 10**6, f"the column heights of the {a}x{b}x{c} box")
+        k, l, z = np.meshgrid(np.arange(a), np.arange(b), np.arange(c), indexing="ij")
+        rows, cols = k - z - i0, l + 1 + z - j0
+        rank = np.minimum(np.minimum(z, k), b - 1 - l)
+        base = setup.to_heights
+
+        def to_heights(h: np.ndarray) -> np.ndarray:
+            m = (base(h) - least) / 3.0
+            present = np.clip(m[rows, cols] - rank, 0.0, 1.0)
+            return present.sum(axis=2)[:, ::-1]
+
+        setup.to_heights = to_heights
+        setup.scale = self.scale
+        return setup
+
     def heat_bath_rule(self):
         """(generic model, q, None): the q^volume heat bath on plane partitions."""
         return self.lower(), self.q, None

@@ -8,10 +8,11 @@ joined into polylines.
 """
 from __future__ import annotations
 
-from typing import Callable, Dict, List, Tuple
+from typing import Callable, List, Tuple
 
 import numpy as np
 
+from ..toolkit.contours import join_segments
 from .densities import DensityGrid
 
 
@@ -33,7 +34,7 @@ def frozen_boundary(grid: DensityGrid, tolerance: float = 0.1, scale: float = 1.
     """
     field = _max_fraction(grid)
     level = 1.0 - tolerance / 2
-    lines = _join(_marching_squares(grid.x, grid.y, field, level))
+    lines = join_segments(_marching_squares(grid.x, grid.y, field, level))
     if not lines:
         return []
     length = [float(np.hypot(*np.diff(line, axis=0).T).sum()) for line in lines]
@@ -63,38 +64,6 @@ def _marching_squares(x: np.ndarray, y: np.ndarray, f: np.ndarray, level: float)
             elif len(points) == 4:  # saddle: pair neighbouring crossings
                 segments += [(points[0], points[1]), (points[2], points[3])]
     return segments
-
-
-def _join(segments: List[Tuple[tuple, tuple]]) -> List[np.ndarray]:
-    def key(p):
-        return (round(p[0], 9), round(p[1], 9))
-
-    ends: Dict[tuple, List[int]] = {}
-    for k, (a, b) in enumerate(segments):
-        ends.setdefault(key(a), []).append(k)
-        ends.setdefault(key(b), []).append(k)
-    used = [False] * len(segments)
-    lines = []
-    for start in range(len(segments)):
-        if used[start]:
-            continue
-        used[start] = True
-        line = [segments[start][0], segments[start][1]]
-        for forward in (True, False):
-            while True:
-                tip = line[-1] if forward else line[0]
-                nxt = next((k for k in ends.get(key(tip), []) if not used[k]), None)
-                if nxt is None:
-                    break
-                used[nxt] = True
-                a, b = segments[nxt]
-                other = b if key(a) == key(tip) else a
-                if forward:
-                    line.append(other)
-                else:
-                    line.insert(0, other)
-        lines.append(np.array(line))
-    return sorted(lines, key=len, reverse=True)
 
 
 def _dilate(mask: np.ndarray, radius: float, dx: float, dy: float, outside: bool) -> np.ndarray:
