@@ -19,11 +19,12 @@ def _densify(curve: np.ndarray, spacing: float) -> np.ndarray:
     return np.concatenate(pts)
 
 
-def curve_distance(empirical: Union[np.ndarray, Sequence[np.ndarray]], theory: np.ndarray,
+def curve_distance(empirical: Union[np.ndarray, Sequence[np.ndarray]], theory: Union[np.ndarray, Sequence[np.ndarray]],
                    spacing: float = 0.002, exclude: Optional[Callable[[np.ndarray], np.ndarray]] = None) -> float:
     """Largest distance from either curve to the other (symmetric Hausdorff distance).
 
-    ``empirical`` is a polyline or a list of them; both curves are densified to
+    ``empirical`` and ``theory`` are each a polyline or a list of them (never
+    joined to each other); both curves are densified to
     ``spacing`` (in the curves' units, e.g. scaled by the region size).
     ``exclude(points) -> bool mask`` drops points of either curve as starting
     points of the comparison (e.g. those next to the region's edge, where the
@@ -35,7 +36,10 @@ def curve_distance(empirical: Union[np.ndarray, Sequence[np.ndarray]], theory: n
     if not lines:
         raise ValueError("the empirical boundary is empty")
     a = np.concatenate([_densify(np.asarray(line, float), spacing) for line in lines])
-    b = _densify(np.asarray(theory, float), spacing)
+    others = [theory] if isinstance(theory, np.ndarray) else list(theory)
+    if not others:
+        raise ValueError("the theory curve is empty")
+    b = np.concatenate([_densify(np.asarray(line, float), spacing) for line in others])
     a_from, b_from = a, b
     if exclude is not None:
         a_from, b_from = a[~exclude(a)], b[~exclude(b)]

@@ -24,9 +24,11 @@ ICE_VERTEX_TYPES = ("#d7a348", "#8a8978", "#47a2d0", "#4136a8", "#3c272c", "#dfe
 #: a measured curve (frozen boundary of a sample) and the theory curve beside it
 MEASURED = "#c2412f"
 THEORY = "#5a3cc8"
+#: a curve predicted by frostline's own solver (the variational principle), beside the other two
+PREDICTED = "#e8c547"
 
 #: up to four series on a white background (examples, comparisons across a parameter)
 SERIES = ("#3c272c", "#47a2d0", "#d7a348", "#4136a8")
 
 PALETTES = {"lozenge faces": LOZENGE_FACES, "domino classes": DOMINO_CLASSES, "ice vertex types": ICE_VERTEX_TYPES,
-            "curves": (MEASURED, THEORY), "series": SERIES}
+            "curves": (MEASURED, THEORY, PREDICTED), "series": SERIES}
