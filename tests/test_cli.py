@@ -170,3 +170,16 @@ def test_regions_are_described_in_words(capsys, tmp_path):
     assert main(["sample", "square_ice", "5", "--seed", "2"]) == 0
     out = capsys.readouterr().out
     assert "exact sample of square ice domain wall: n 5" in out and "SquareIceRegion(" not in out
+
+
+def test_predict_draws_the_limit_shape(tmp_path, capsys):
+    for argv in (["predict", "hexagon", "8", "7", "6"], ["predict", "aztec", "12"],
+                 ["predict", "hexagon", "4", "4", "4", "--resolution", "2"]):
+        picture = tmp_path / f"{argv[1]}-{len(argv)}.png"
+        assert main(argv + ["--picture", str(picture)]) == 0
+        assert picture.stat().st_size > 5000
+        out = capsys.readouterr().out
+        assert "log Z ~" in out and "converged" in out
+    assert main(["predict", "square_ice", "4", "--picture", str(tmp_path / "ice.png")]) == 2
+    assert "no variational principle" in capsys.readouterr().err
+    assert main(["predict", "hexagon", "3", "3", "3", "--resolution", "0", "--picture", str(tmp_path / "x.png")]) == 2

@@ -81,7 +81,7 @@ def _add_ensemble_options(p: argparse.ArgumentParser) -> None:
 
 
 def _add_shapes(parent: argparse.ArgumentParser, sampling: bool, picture_required: bool = False,
-                ensemble: bool = False, counting: bool = False) -> None:
+                ensemble: bool = False, counting: bool = False, predicting: bool = False) -> None:
     shapes = parent.add_subparsers(dest="shape", metavar="SHAPE", required=True)
     for name, (_, shape) in _shape_table().items():
         p = shapes.add_parser(name, help=shape.help, description=shape.description or shape.help)
@@ -100,6 +100,9 @@ def _add_shapes(parent: argparse.ArgumentParser, sampling: bool, picture_require
             p.add_argument("--picture", type=Path, required=True, help="the picture to write (.png, .svg or .pdf)")
         if ensemble:
             _add_ensemble_options(p)
+        if predicting:
+            p.add_argument("--resolution", type=int, default=None,
+                           help="refine every cell this many times in each direction (lozenge regions; default 1)")
         if counting:
             p.add_argument("--no-limits", action="store_true",
                            help="lift the cost caps of exact counts (time and digits); Ctrl-C still stops it")
@@ -142,6 +145,13 @@ def _parser() -> argparse.ArgumentParser:
                                   description="Exact placement probabilities (inverse Kasteleyn matrix) drawn as one "
                                               "panel per tile class; lozenge regions with q = 1 and domino regions.")
     _add_shapes(density, sampling=False, picture_required=True)
+    predict = commands.add_parser(
+        "predict", help="draw the limit shape the variational principle predicts for a region",
+        description="Solve the variational principle (entropy of Cohn, Kenyon and Propp; q ** volume as a linear "
+                    "term) for the region: print log Z's continuum estimate and the solver's report, and draw the "
+                    "predicted density of each tile class with the predicted frozen boundary. Lozenge regions "
+                    "(any q) and uniform domino regions.")
+    _add_shapes(predict, sampling=False, picture_required=True, predicting=True)
     compare = commands.add_parser(
         "compare", help="frozen boundaries of every lattice's comparison family against theory",
         description="For the comparison family each lattice declares (built in: a regular hexagon, an Aztec "
@@ -345,6 +355,27 @@ def _density(args) -> int:
     return 0
 
 
+def _predict(args) -> int:
+    from . import plot
+
+    _check_outputs(args.picture, None)
+    region = _region(args)
+    started = time.perf_counter()
+
+    def report(iteration: int, decrement: float, value: float) -> None:
+        print(f"\r  Newton step {iteration}: functional {value:.6f}, decrement {decrement:.1e} "
+              f"({time.perf_counter() - started:.1f} s)", end="", file=sys.stderr, flush=True)
+
+    shape = region.limit_shape(args.resolution, progress=report)
+    print(file=sys.stderr)
+    print(f"{region.summary()}: log Z ~ {shape.log_partition_function:.6f} (continuum estimate); {shape.report}")
+    curves = [line * shape.scale for line in shape.frozen_boundary]
+    plot.save_densities(shape.densities, args.picture, curves=curves,
+                        title=f"predicted densities, {region.summary()}")
+    print(f"predicted densities and frozen boundary written to {args.picture}")
+    return 0
+
+
 def _compare(args) -> int:
     from . import plot
     from .analysis.compare import compare, figure, table
@@ -427,7 +458,7 @@ def _lattices(args) -> int:
 def main(argv: Optional[Sequence[str]] = None) -> int:
     """Entry point of the ``frostline`` command; returns the exit status."""
     args = _parser().parse_args(list(argv) if argv is not None else None)
-    handlers = {"sample": _sample, "ensemble": _ensemble, "count": _count, "density": _density, "compare": _compare, "show": _show,
+    handlers = {"sample": _sample, "ensemble": _ensemble, "count": _count, "density": _density, "predict": _predict, "compare": _compare, "show": _show,
                 "demo": _demo, "lattices": _lattices}
     try:
         return handlers[args.command](args)

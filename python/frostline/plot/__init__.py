@@ -8,6 +8,8 @@ from __future__ import annotations
 import os
 from typing import Any, Optional
 
+from ..toolkit import palette
+
 FORMATS = (".png", ".svg", ".pdf")
 
 __all__ = ["FORMATS", "save", "save_densities"]
@@ -42,11 +44,14 @@ def save(sample: Any, path: str | os.PathLike[str], *, size: float = 6.0, dpi: i
     return str(path)
 
 
-def save_densities(densities: dict, path: str | os.PathLike[str], *, title: Optional[str] = None, dpi: int = 200) -> str:
-    """One panel per tile class: tile centres coloured by their exact probability (0 to 1).
+def save_densities(densities: dict, path: str | os.PathLike[str], *, title: Optional[str] = None, dpi: int = 200,
+                   curves: Optional[list] = None) -> str:
+    """One panel per tile class: tile centres coloured by their probability (0 to 1).
 
     ``densities`` maps class name to (centres (k, 2), probabilities (k,)), as
-    :func:`frostline.exact.class_densities` returns.
+    :func:`frostline.exact.class_densities` and ``Region.limit_shape().densities``
+    return; ``curves`` (polylines in the same plane coordinates, e.g. a
+    predicted frozen boundary times the region's scale) are drawn on every panel.
     """
     ext = os.path.splitext(str(path))[1].lower()
     if ext not in FORMATS:
@@ -58,6 +63,8 @@ def save_densities(densities: dict, path: str | os.PathLike[str], *, title: Opti
     for ax, (name, (centres, p)) in zip(axes[0], densities.items()):
         size = max(2.0, 3000.0 / max(len(p), 1))
         image = ax.scatter(centres[:, 0], centres[:, 1], c=p, s=size, cmap="magma", vmin=0, vmax=1, linewidths=0)
+        for line in curves or []:
+            ax.plot(line[:, 0], line[:, 1], color=palette.PREDICTED, lw=0.8)
         ax.set_title(name)
         ax.set_aspect("equal")
         ax.set_axis_off()
