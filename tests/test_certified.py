@@ -35,7 +35,8 @@ def test_ill_conditioned_uniform_region_is_exact():
     assert np.linalg.cond(k) > 1e15  # the case really is ill-conditioned
     naive = np.linalg.slogdet(k)[1]
     truth = flint_log_abs_det_integer(k)
-    assert abs(naive - truth) > 1e-3  # what a plain float determinant gets wrong
+    # what a plain float determinant gets wrong: 7.7e-3 or 2.6e-4 here, depending on the BLAS build
+    assert abs(naive - truth) > 1e-6
     bound = log_partition_function_bound(region)
     assert abs(bound.value - truth) <= max(bound.error, 1e-12) and bound.error < 1e-9
     assert abs(log_partition_function(region) - math.log(region.count())) < 1e-9

@@ -24,7 +24,7 @@ else:  # pragma: no cover
 #: layer of each first-level part of the package (higher imports lower, never the reverse)
 ENGINE = {"_core", "_version", "_validate", "_limits", "errors", "seeding", "model", "methods", "sample", "chain",
           "region", "lattice_spec", "registry", "progress", "height_walk", "diagnostics"}
-TOOLKIT = {"exact", "toolkit"}
+TOOLKIT = {"exact", "toolkit", "variational"}
 USER = {"analysis", "plot", "io", "cli", "ensemble"}
 
 

@@ -152,33 +152,14 @@ class Region(abc.ABC):
         """Named views of a sample computed from its heights (``Sample.<name>``); none by default."""
         return {}
 
-    def limit_setup(self, resolution: int = 1) -> Any:
-        """This region lowered to the variational problem (a :class:`frostline.variational.LimitSetup`).
+    def limit_shape(self, resolution: Optional[int] = None, *, progress: Any = None) -> Any:
+        """The limit shape predicted by the variational principle; see :mod:`frostline.variational`.
 
-        Plugins whose lattice has a built-in surface tension override this;
-        the default raises ValueError.
+        Plugins whose lattice has a built-in surface tension provide it (through
+        :class:`frostline.variational.VariationalRegion`); the default raises ValueError.
         """
         raise ValueError(f"no variational principle (surface tension) is built in for {self.lattice} regions; "
                          "limit shapes are available for lozenge and uniform domino regions")
-
-    def limit_shape(self, resolution: Optional[int] = None, *, progress: Any = None) -> Any:
-        """The limit shape predicted by the variational principle (a :class:`frostline.variational.LimitShape`).
-
-        The maximiser of the entropy functional (Cohn, Kenyon, Propp 2001; the
-        lozenge entropy through the Lobachevsky function, q ** volume as a
-        linear term) with this region's boundary heights, on the region's own
-        cells, refined ``resolution`` times in each direction where the plugin
-        allows it (lozenges; ``None`` = 1). See docs/limit_shapes.md.
-        ``progress(iteration, decrement, value)`` is called after every Newton
-        step. Raises ValueError for lattices with no built-in surface tension.
-        """
-        from .variational.result import limit_shape_of
-
-        if resolution is None:
-            resolution = 1
-        if isinstance(resolution, bool) or not isinstance(resolution, (int, np.integer)) or resolution < 1:
-            raise ValueError(f"resolution must be a positive int (refinement factor), got {resolution!r}")
-        return limit_shape_of(self.limit_setup(int(resolution)), progress=progress)
 
     # ----- the generic lowering, shared by every plugin ---------------------------
     def generic_method(self) -> ExactMethod:

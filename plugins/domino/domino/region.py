@@ -27,6 +27,7 @@ from frostline.height_walk import refuse_holes, walk_boundary
 from frostline.methods import ChainKernel, ExactMethod, RunOptions
 from frostline.model import HeightModel
 from frostline.region import Region, Sample
+from frostline.variational import VariationalRegion
 
 from .geometry import SquareGeometry
 from .weights import Weights, check_weights, flip_thresholds
@@ -55,7 +56,7 @@ BYTES_PER_CORNER = 36
 ENGINE_BYTES_PER_CORNER = 450
 
 
-class DominoRegion(Region):
+class DominoRegion(VariationalRegion, Region):
     """Domino tilings of a mask of cells, optionally with a weight per domino position."""
 
     lattice = "domino"

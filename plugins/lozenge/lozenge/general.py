@@ -27,6 +27,7 @@ from frostline.height_walk import integrate, integrate_expected, walk_boundary
 from frostline.methods import ExactMethod, RunOptions
 from frostline.model import HeightModel
 from frostline.region import Region
+from frostline.variational import VariationalRegion
 
 from .geometry import EDGE_ENDS, PARTNER, TriangleGrid
 from .parameters import QLike, weight
@@ -34,7 +35,7 @@ from .tile_mixin import LozengeTiles
 from .tiles import lozenge_dimer_system
 
 
-class LozengeRegion(LozengeTiles, Region):
+class LozengeRegion(LozengeTiles, VariationalRegion, Region):
     """Lozenge tilings of a region of unit triangles, weight q ** volume.
 
     ``Sample.heights`` is an int32 array over the bounding box of the region's

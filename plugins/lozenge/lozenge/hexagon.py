@@ -12,6 +12,7 @@ from frostline.exact.budget import DEFAULT_BUDGET_SECONDS, DEFAULT_MAX_DIGITS
 from frostline.methods import ChainKernel, ExactMethod, RunOptions
 from frostline.model import HeightModel
 from frostline.region import Region
+from frostline.variational import VariationalRegion
 
 from . import counts
 from .parameters import QLike, side_length, weight
@@ -19,7 +20,7 @@ from .tile_mixin import LozengeTiles
 from .tiles import hexagon_corners, tiles_of_plane_partition
 
 
-class HexagonRegion(LozengeTiles, Region):
+class HexagonRegion(LozengeTiles, VariationalRegion, Region):
     """Lozenge tilings of the a, b, c hexagon = plane partitions in an a x b x c box.
 
     Heights (``Sample.heights``) are the plane partition: an int32 array of

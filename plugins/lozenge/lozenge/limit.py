@@ -110,11 +110,9 @@ def refined_setup(region: Any, m: int) -> LimitSetup:
     continuum problem on a finer mesh: heights come back divided by m, log Z
     by m^2, tile densities as the mean over the refined cells in each cell.
     """
-    from .general import LozengeRegion
-
     coarse = limit_setup(region)
     triangles, parent = refined_triangles(region.triangles, m)
-    fine_region = LozengeRegion(triangles, q=region.q ** (1.0 / m), description={"shape": "refined"})
+    fine_region = type(region)(triangles, q=region.q ** (1.0 / m), description={"shape": "refined"})
     fine = limit_setup(fine_region)
     g, fg = region.grid, fine_region.grid
     # the coarse cell of every fine cell, in the order limit_setup lists cells (up triangles, then down)
