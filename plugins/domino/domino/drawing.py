@@ -6,7 +6,7 @@ from typing import Any, Optional, Sequence
 import numpy as np
 
 from frostline.toolkit import palette
-from frostline.toolkit.drawing import frame
+from frostline.toolkit.drawing import RASTER_TILES, frame, hex_to_rgb, show_raster
 
 CLASS_TONES = palette.DOMINO_CLASSES  # north, south, east, west: warm horizontal, cool vertical
 
@@ -25,12 +25,18 @@ def domino_rectangles(tiles: np.ndarray) -> np.ndarray:
 def draw_dominoes(tiles: np.ndarray, classes: np.ndarray, ax: Any = None, *, tones: Sequence[str] = CLASS_TONES,
                   edge_colour: Optional[str] = None, edge_width: Optional[float] = None,
                   title: Optional[str] = None) -> Any:
-    """Draw dominoes coloured by class (0 north, 1 south, 2 east, 3 west); returns the Axes."""
+    """Draw dominoes coloured by class (0 north, 1 south, 2 east, 3 west); returns the Axes.
+
+    More than ``RASTER_TILES`` dominoes are drawn as one image, a pixel per cell (:func:`raster_dominoes`).
+    """
     import matplotlib.pyplot as plt
     from matplotlib.collections import PolyCollection
 
     if ax is None:
         _, ax = plt.subplots(figsize=(6, 6))
+    if len(np.asarray(tiles).reshape(-1, 2, 2)) > RASTER_TILES:
+        image, extent = raster_dominoes(tiles, classes, tones=tones)
+        return show_raster(ax, image, extent, title)
     rects = domino_rectangles(tiles)
     colours = list(np.array(tones, dtype=object)[np.asarray(classes, dtype=int)]) if len(rects) else []
     large = len(rects) > 1500
@@ -39,3 +45,18 @@ def draw_dominoes(tiles: np.ndarray, classes: np.ndarray, ax: Any = None, *, ton
     edges: Any = edge_colour or (colours if large else palette.DOMINO_INK)
     ax.add_collection(PolyCollection(list(rects), facecolors=colours, edgecolors=edges, linewidths=edge_width))
     return frame(ax, rects, title)
+
+
+def raster_dominoes(tiles: np.ndarray, classes: np.ndarray, *, tones: Sequence[str] = CLASS_TONES) -> tuple:
+    """An RGBA image with one pixel per cell (row 0 at the top; transparent outside) and its plane extent."""
+    t = np.asarray(tiles, dtype=np.int64).reshape(-1, 2, 2)
+    if len(t) == 0:
+        raise ValueError("there are no dominoes to draw")
+    r0, c0 = t[:, :, 0].min(), t[:, :, 1].min()
+    rows, cols = t[:, :, 0].max() - r0 + 1, t[:, :, 1].max() - c0 + 1
+    image = np.zeros((rows, cols, 4))
+    rgba = np.array([(*hex_to_rgb(c), 1.0) for c in tones])
+    colour = rgba[np.asarray(classes, dtype=np.int64)]
+    for k in (0, 1):
+        image[t[:, k, 0] - r0, t[:, k, 1] - c0] = colour
+    return image, (float(c0), float(c0 + cols), float(-(r0 + rows)), float(-r0))

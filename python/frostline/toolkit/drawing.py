@@ -19,3 +19,23 @@ def frame(ax: Any, polygons: Any, title: Optional[str] = None) -> Any:
     if title:
         ax.set_title(title)
     return ax
+
+
+#: tilings with more tiles than this are drawn as one raster image instead of one polygon per tile
+RASTER_TILES = 150_000
+
+
+def hex_to_rgb(colour: str) -> tuple:
+    """'#rrggbb' -> (r, g, b) floats in [0, 1]."""
+    c = colour.lstrip("#")
+    return tuple(int(c[k:k + 2], 16) / 255.0 for k in (0, 2, 4))
+
+
+def show_raster(ax: Any, image: Any, extent: Any, title: Optional[str] = None) -> Any:
+    """Draw an RGBA image (rows from the top) over ``extent`` (x0, x1, y0, y1); frame the Axes; returns ax."""
+    import numpy as np
+
+    ax.imshow(image, extent=extent, origin="upper", interpolation="antialiased")
+    x0, x1, y0, y1 = extent
+    corners = np.array([[x0, y0], [x1, y1]], dtype=float)
+    return frame(ax, corners[None], title)

@@ -1,0 +1,56 @@
+"""Large tilings are drawn as one image: every pixel shows the tile under it (common practice for big pictures)."""
+from __future__ import annotations
+
+import numpy as np
+import pytest
+
+import frostline as fl
+from frostline.domino.drawing import raster_dominoes
+from frostline.lozenge.drawing import raster_lozenges
+from frostline.lozenge.tiles import DOWN_PARTNER, plane_points
+from frostline.toolkit import palette
+from frostline.toolkit.drawing import hex_to_rgb
+
+
+def _pixel(image, extent, point):
+    x0, x1, y0, y1 = extent
+    h, w, _ = image.shape
+    return image[int((y1 - point[1]) / (y1 - y0) * h), int((point[0] - x0) / (x1 - x0) * w)]
+
+
+@pytest.mark.parametrize("seed", [0, 1])
+def test_lozenge_raster_shows_the_lozenge_of_every_triangle(seed):
+    tiles = fl.lozenge.hexagon(6, 5, 4).sample(seed=seed).tiles
+    image, extent = raster_lozenges(tiles, pixels=600, oversample=1)
+    for x, y, t in tiles:
+        colour = hex_to_rgb(palette.LOZENGE_FACES[t])
+        dx, dy = DOWN_PARTNER[t]
+        up_centre = plane_points(np.array([x + 1 / 3, y + 1 / 3]))
+        down_centre = plane_points(np.array([x + dx + 2 / 3, y + dy + 2 / 3]))
+        assert np.allclose(_pixel(image, extent, up_centre)[:3], colour)
+        assert np.allclose(_pixel(image, extent, down_centre)[:3], colour)
+    assert _pixel(image, extent, (extent[0] + 1e-3, extent[3] - 1e-3))[3] == 0.0   # outside: transparent
+
+
+def test_domino_raster_is_one_pixel_per_cell():
+    region = fl.domino.aztec_diamond(6)
+    tiles = region.sample(seed=3).tiles
+    classes = region.classify(tiles)
+    image, extent = raster_dominoes(tiles, classes)
+    assert image.shape[:2] == region.mask.shape
+    for (cells, k) in zip(tiles, classes):
+        for r, c in cells:
+            assert np.allclose(image[r, c, :3], hex_to_rgb(palette.DOMINO_CLASSES[k]))
+    assert (image[..., 3] > 0).sum() == region.mask.sum()
+    assert extent == (0.0, 12.0, -12.0, 0.0)
+
+
+def test_big_pictures_use_the_raster(tmp_path, monkeypatch):
+    import frostline.domino.drawing as dd
+    import frostline.lozenge.drawing as ld
+    monkeypatch.setattr(ld, "RASTER_TILES", 10)
+    monkeypatch.setattr(dd, "RASTER_TILES", 10)
+    for region in (fl.lozenge.hexagon(5, 5, 5), fl.domino.aztec_diamond(5)):
+        path = tmp_path / f"{region.lattice}.png"
+        fl.plot.save(region.sample(seed=0), path)
+        assert path.stat().st_size > 2000
