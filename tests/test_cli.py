@@ -183,3 +183,13 @@ def test_predict_draws_the_limit_shape(tmp_path, capsys):
     assert main(["predict", "square_ice", "4", "--picture", str(tmp_path / "ice.png")]) == 2
     assert "no variational principle" in capsys.readouterr().err
     assert main(["predict", "hexagon", "3", "3", "3", "--resolution", "0", "--picture", str(tmp_path / "x.png")]) == 2
+
+
+def test_method_choices_follow_the_shape(capsys):
+    with pytest.raises(SystemExit) as stop:
+        main(["sample", "aztec", "4", "--method", "box"])
+    assert stop.value.code == 2 and "choose from 'auto', 'cftp', 'generic', 'shuffling'" in capsys.readouterr().err
+    assert main(["sample", "aztec", "4", "--method", "shuffling", "--seed", "1"]) == 0
+    assert main(["sample", "hexagon", "3", "3", "3", "--method", "box", "--seed", "1"]) == 0
+    with pytest.raises(SystemExit):
+        main(["sample", "square_ice", "4", "--method", "shuffling"])

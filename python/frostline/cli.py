@@ -109,10 +109,11 @@ def _add_shapes(parent: argparse.ArgumentParser, sampling: bool, picture_require
         if sampling:
             p.add_argument("--seed", type=int, default=None,
                            help="non-negative int; the same seed gives the same sample (default: fresh, printed)")
-            p.add_argument("--method", default="auto",
+            own = [m for m in shape.method_choices if m not in ("auto", "cftp", "generic")]
+            p.add_argument("--method", default="auto", choices=shape.method_choices,
                            help="exact sampler: auto (default: the region's fixed choice), cftp (coupling from the "
-                                "past, fastest kernel), generic (reference engine) or a method of the region such "
-                                "as box or shuffling")
+                                "past, fastest kernel), generic (reference engine)"
+                                + (f", or this shape's own: {', '.join(own)}" if own else ""))
             p.add_argument("--picture", type=Path, default=None, help="write a picture (.png, .svg or .pdf)")
             p.add_argument("--output", type=Path, default=None,
                            help="write the sample to a .npz file (heights, tiles, metadata record)")

@@ -52,7 +52,9 @@ class Shape:
     """A named family of regions with its command-line arguments.
 
     ``build(**arguments)`` returns the region; ``required`` lists exclusive
-    groups of which exactly one member must be given.
+    groups of which exactly one member must be given; ``methods`` adds the
+    shape's own exact methods (beyond auto, cftp and generic, which every
+    region has) to the command line's ``--method`` choices.
     """
 
     name: str
@@ -61,6 +63,12 @@ class Shape:
     arguments: Tuple[Argument, ...] = ()
     description: str = ""
     required: Tuple[str, ...] = ()
+    methods: Tuple[str, ...] = ()
+
+    @property
+    def method_choices(self) -> Tuple[str, ...]:
+        """Every ``--method`` value the command line accepts for this shape."""
+        return ("auto", "cftp", "generic") + tuple(m for m in self.methods if m not in ("auto", "cftp", "generic"))
 
 
 @dataclass(frozen=True)

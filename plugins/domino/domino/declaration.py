@@ -37,7 +37,7 @@ LATTICE = LatticeSpec(
                         exclusive="weights"),
                Argument("two_periodic", "two-periodic weights A and B (gas phase in the middle when A != B)",
                         type=float, nargs=2, metavar=("A", "B"), flag="--two-periodic", exclusive="weights")),
-              "Domino tilings of the Aztec diamond of order N (2N(N+1) cells)."),
+              "Domino tilings of the Aztec diamond of order N (2N(N+1) cells).", methods=("shuffling",)),
         Shape("rectangle", "domino tilings of a ROWS x COLUMNS rectangle", rectangle,
               (Argument("rows", "number of rows"), Argument("columns", "number of columns"))),
         Shape("mask", "domino tilings of a region drawn in a text file",

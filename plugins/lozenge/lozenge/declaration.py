@@ -40,7 +40,7 @@ LATTICE = LatticeSpec(
               lambda sides, q=1.0: hexagon(sides[0], sides[1], sides[2], q=q),
               (Argument("sides", "three side lengths A B C: plane partitions in an A x B x C box", nargs=3,
                         metavar="SIDE"), _Q),
-              "Lozenge tilings of the A, B, C hexagon = plane partitions in an A x B x C box."),
+              "Lozenge tilings of the A, B, C hexagon = plane partitions in an A x B x C box.", methods=("box",)),
         Shape("path", "the region inside a boundary path", _path,
               (Argument("path", "the boundary path, quoted", type=str, nargs="?", exclusive="source"),
                Argument("file", "read the boundary path from this text file", type=Path, flag="--file",
