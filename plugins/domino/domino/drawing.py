@@ -6,7 +6,7 @@ from typing import Any, Optional, Sequence
 import numpy as np
 
 from frostline.toolkit import palette
-from frostline.toolkit.drawing import RASTER_TILES, frame, hex_to_rgb, show_raster
+from frostline.toolkit.drawing import RASTER_TILES, add_key, frame, hex_to_rgb, show_raster
 
 CLASS_TONES = palette.DOMINO_CLASSES  # north, south, east, west: warm horizontal, cool vertical
 
@@ -24,16 +24,19 @@ def domino_rectangles(tiles: np.ndarray) -> np.ndarray:
 
 def draw_dominoes(tiles: np.ndarray, classes: np.ndarray, ax: Any = None, *, tones: Sequence[str] = CLASS_TONES,
                   edge_colour: Optional[str] = None, edge_width: Optional[float] = None,
-                  title: Optional[str] = None) -> Any:
+                  title: Optional[str] = None, key: Optional[Sequence[str]] = None) -> Any:
     """Draw dominoes coloured by class (0 north, 1 south, 2 east, 3 west); returns the Axes.
 
     More than ``RASTER_TILES`` dominoes are drawn as one image, a pixel per cell (:func:`raster_dominoes`).
+    ``key``: class names for a key beside the picture (none when None).
     """
     import matplotlib.pyplot as plt
     from matplotlib.collections import PolyCollection
 
     if ax is None:
         _, ax = plt.subplots(figsize=(6, 6))
+    if key is not None:
+        add_key(ax, [(name, tone, None) for name, tone in zip(key, tones)])
     if len(np.asarray(tiles).reshape(-1, 2, 2)) > RASTER_TILES:
         image, extent = raster_dominoes(tiles, classes, tones=tones)
         return show_raster(ax, image, extent, title)

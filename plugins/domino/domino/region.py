@@ -485,6 +485,7 @@ class DominoRegion(VariationalRegion, Region):
     def draw(self, sample: Sample, ax: Any = None, **style: Any) -> Any:
         from .drawing import draw_dominoes
 
+        style.setdefault("key", self.tile_classes)       # north, south, east, west beside the picture
         return draw_dominoes(sample.tiles, self.classify(sample.tiles), ax=ax, **style)
 
     def __repr__(self) -> str:

@@ -6,17 +6,21 @@ from typing import Any, Optional, Sequence
 import numpy as np
 
 from frostline.toolkit import palette
-from frostline.toolkit.drawing import RASTER_TILES, frame, hex_to_rgb, show_raster
+from frostline.toolkit.drawing import RASTER_TILES, add_key, frame, hex_to_rgb, show_raster
 
 from .tiles import DOWN_PARTNER, SQRT3_2, lozenge_polygons
 
 FACE_TONES = palette.LOZENGE_FACES  # cube tops pale, the two visible sides in two darker tones
+#: what each lozenge type is in the stack-of-cubes picture (tiles.tiles_of_plane_partition)
+TYPE_NAMES = ("type 0: cube tops", "type 1: faces along +X", "type 2: faces along -Y")
 
 
 def draw_lozenges(tiles: np.ndarray, ax: Any = None, *, tones: Sequence[str] = FACE_TONES,
                   edge_colour: Optional[str] = None, edge_width: Optional[float] = None,
-                  title: Optional[str] = None) -> Any:
+                  title: Optional[str] = None, key: bool = False) -> Any:
     """Draw lozenges (rows (x, y, t)) on matplotlib Axes; returns the Axes.
+
+    ``key`` adds a key naming the three types (cube tops and the two visible sides).
 
     Edges are drawn for small tilings and left out for large ones, where they
     would turn the picture grey; pass ``edge_colour``/``edge_width`` to choose.
@@ -29,6 +33,8 @@ def draw_lozenges(tiles: np.ndarray, ax: Any = None, *, tones: Sequence[str] = F
     if ax is None:
         _, ax = plt.subplots(figsize=(6, 6))
     tiles = np.asarray(tiles).reshape(-1, 3)
+    if key:
+        add_key(ax, [(name, tone, None) for name, tone in zip(TYPE_NAMES, tones)])
     if len(tiles) > RASTER_TILES:
         image, extent = raster_lozenges(tiles, tones=tones)
         return show_raster(ax, image, extent, title)

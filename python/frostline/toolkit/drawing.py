@@ -39,3 +39,13 @@ def show_raster(ax: Any, image: Any, extent: Any, title: Optional[str] = None) -
     x0, x1, y0, y1 = extent
     corners = np.array([[x0, y0], [x1, y1]], dtype=float)
     return frame(ax, corners[None], title)
+
+
+def add_key(ax: Any, entries: Any, title: Optional[str] = None) -> Any:
+    """A key beside the Axes: ``entries`` are (label, face colour or None, edge colour or None) rows."""
+    from matplotlib.patches import Patch
+
+    handles = [Patch(facecolor=face if face is not None else "none", edgecolor=edge if edge is not None else face,
+                     label=label) for label, face, edge in entries]
+    return ax.legend(handles=handles, loc="upper left", bbox_to_anchor=(1.01, 1.0), fontsize=7, frameon=False,
+                     title=title, title_fontsize=7)
