@@ -41,8 +41,8 @@ def draw_ice(heights: np.ndarray, kind: str = "vertices", ax: Any = None, tones:
         if key:
             add_key(ax, [(name, tone, None) for name, tone in zip(TYPE_NAMES, tones)], title="vertex type")
     elif kind == "heights":
-        i, j = np.indices(h.shape)
-        parity = (i + j + int(h[0, 0])) % 2
+        rows, cols = np.indices(h.shape)
+        parity = (rows + cols + int(h[0, 0])) % 2
         image = ax.imshow((h - parity) / 2.0, cmap="cividis", extent=(-0.5, n + 0.5, -0.5, n + 0.5),
                           interpolation="nearest")
         plt.colorbar(image, ax=ax, shrink=0.8, label="(height - parity) / 2")

@@ -1,11 +1,13 @@
 """The limit shape of a region: :class:`LimitShape`, and how it is made from a :class:`LimitSetup`."""
 from __future__ import annotations
 
+import warnings
 from dataclasses import dataclass
 from typing import List, Optional
 
 import numpy as np
 
+from ..errors import FrostlineWarning
 from ..toolkit.contours import marching_triangles
 from .setup import LimitSetup, TileDensities
 from .solver import SolverProgress, SolverReport, functional, solve
@@ -69,10 +71,17 @@ class LimitShape:
 
 
 def limit_shape_of(setup: LimitSetup, *, progress: Optional[SolverProgress] = None,
-                   tolerance: float = 1e-12, max_iterations: int = 300) -> LimitShape:
-    """Solve the setup's variational problem and convert the maximiser back (see :class:`LimitShape`)."""
+                   tolerance: float = 1e-12, max_iterations: int = 600) -> LimitShape:
+    """Solve the setup's variational problem and convert the maximiser back (see :class:`LimitShape`).
+
+    Warns (FrostlineWarning) when the solver stops before converging: the
+    result is then the best point reached, not the maximiser.
+    """
     problem = setup.problem
     h, report = solve(problem, tolerance=tolerance, max_iterations=max_iterations, progress=progress)
+    if not report.converged:
+        warnings.warn(f"the limit shape did not converge: {report}; raise max_iterations or check the region",
+                      FrostlineWarning, stacklevel=3)
     p, _ = problem.densities(h)
     p = np.clip(p, 0.0, 1.0)
     liquid = _node_liquidity(problem.cells, 1.0 - p.max(axis=1), problem.n_nodes)

@@ -77,13 +77,11 @@ def _towards_harmonic(problem: CellProblem, inside: np.ndarray) -> np.ndarray:
     index[free] = np.arange(int(free.sum()))
     tail, head = problem.edges()
     t, h = tail.ravel(), head.ravel()
-    both = free[t] & free[h]
     n = int(free.sum())
     laplacian = _laplacian(index[t], index[h], np.ones(len(t)), n)
     # fixed neighbours move to the right-hand side
     rhs = np.bincount(index[t[free[t] & ~free[h]]], weights=inside[h[free[t] & ~free[h]]], minlength=n)
     rhs += np.bincount(index[h[free[h] & ~free[t]]], weights=inside[t[free[h] & ~free[t]]], minlength=n)
-    del both
     harmonic = inside.copy()
     harmonic[free] = spsolve(laplacian, rhs, permc_spec="MMD_AT_PLUS_A")
     move = harmonic - inside
@@ -106,7 +104,7 @@ def functional(problem: CellProblem, h: np.ndarray) -> float:
     return value
 
 
-def solve(problem: CellProblem, *, tolerance: float = 1e-12, max_iterations: int = 300,
+def solve(problem: CellProblem, *, tolerance: float = 1e-12, max_iterations: int = 600,
           progress: Optional[SolverProgress] = None) -> tuple:
     """Maximise F; returns (node heights, report).
 
@@ -127,7 +125,7 @@ def solve(problem: CellProblem, *, tolerance: float = 1e-12, max_iterations: int
     it, ih = index[t_act], index[h_act]
     w = problem.cell_weight / problem.step
     history: List[float] = []
-    report = SolverReport(0, float("inf"), n_free == 0, 0.0, n_free, history)
+    report = SolverReport(0, 0.0 if n_free == 0 else float("inf"), n_free == 0, 0.0, n_free, history)
     value = functional(problem, h)
     for iteration in range(1, max_iterations + 1):
         if n_free == 0:
@@ -141,6 +139,7 @@ def solve(problem: CellProblem, *, tolerance: float = 1e-12, max_iterations: int
         grad -= np.bincount(ih[ih >= 0], weights=slope[ih >= 0], minlength=n_free)
         if problem.linear is not None:
             grad += problem.linear[free]
+        curvature = _concave_cells(problem.cells.shape, active, curvature)
         omega = (w / problem.step) * curvature
         matrix = _laplacian(it, ih, omega, n_free)
         direction = spsolve(matrix, grad, permc_spec="MMD_AT_PLUS_A")
@@ -149,8 +148,9 @@ def solve(problem: CellProblem, *, tolerance: float = 1e-12, max_iterations: int
         history.append(value)
         if progress is not None:
             progress(iteration, decrement, value)
-        if not np.isfinite(decrement):
-            raise ArithmeticError("the Newton system became singular; the region may be too degenerate")
+        if not np.isfinite(decrement) or decrement < -1e-9 * max(1.0, abs(value)):
+            raise ValueError(f"the Newton system of the limit shape failed (decrement {decrement:.3g}) at step "
+                             f"{iteration}; the region may be too degenerate for the solver")
         goal = tolerance * max(1.0, abs(value))
         if decrement / 2.0 < goal or (len(history) > 5 and history[-1] - history[-6] < 100 * goal):
             report.converged = True
@@ -170,6 +170,25 @@ def solve(problem: CellProblem, *, tolerance: float = 1e-12, max_iterations: int
         h, value = trial, trial_value
     report.seconds = time.perf_counter() - started
     return h, report
+
+
+def _concave_cells(shape: tuple, active: np.ndarray, curvature: np.ndarray) -> np.ndarray:
+    """Curvatures with each cell's quadratic form made positive on {sum of edge changes = 0}.
+
+    A cell's form sum_j c_j v_j^2 (c_j = -d^2/dp^2 of its terms) is positive on
+    sum v = 0 when at most one c_j is negative and sum 1 / c_j < 0; the true
+    entropy satisfies this, but below the floors the Taylor extension replaces
+    1/p by a constant and can break it where one probability is near 1. The
+    negative curvature is then raised to -(1 - 1e-6) / sum of 1/c over the
+    positive ones, which keeps the Newton matrix positive definite (a
+    modified Newton step: still an ascent direction for the exact gradient).
+    """
+    full = np.zeros(shape)
+    full[active] = curvature
+    positive = np.where(full > 0, 1.0 / np.where(full > 0, full, 1.0), 0.0).sum(axis=1, keepdims=True)
+    least = -(1.0 - 1e-6) / np.maximum(positive, 1e-300)
+    full = np.where(full < 0, np.maximum(full, least), full)
+    return full[active]
 
 
 def _laplacian(it: np.ndarray, ih: np.ndarray, omega: np.ndarray, n: int) -> sparse.csc_matrix:
