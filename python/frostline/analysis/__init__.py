@@ -8,10 +8,11 @@ from .curves import conic_points, curve_distance
 from .densities import DensityGrid, density_grid, local_densities
 from .exact_comparison import ExactComparison, compare_with_exact
 from .fluctuations import POINTWISE_SLOPE, TWO_POINT_SLOPE, Fluctuations, height_fluctuations, variance_growth
+from .frozen_positions import FrozenPositions, crossing, frozen_positions
 from .heights import height_statistics, variance_at
 from .tracy_widom import tracy_widom_cdf, tracy_widom_moments
 
 __all__ = ["POINTWISE_SLOPE", "TWO_POINT_SLOPE", "DensityGrid", "ExactComparison", "Fluctuations",
-           "compare_with_exact", "conic_points", "curve_distance", "density_grid", "frozen_boundary", "frozen_mask",
+           "FrozenPositions", "compare_with_exact", "conic_points", "crossing", "curve_distance", "density_grid", "frozen_boundary", "frozen_mask", "frozen_positions",
            "height_fluctuations", "height_statistics", "local_densities", "near_edge", "tracy_widom_cdf",
            "tracy_widom_moments", "variance_at", "variance_growth"]
