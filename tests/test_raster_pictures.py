@@ -54,3 +54,10 @@ def test_big_pictures_use_the_raster(tmp_path, monkeypatch):
         path = tmp_path / f"{region.lattice}.png"
         fl.plot.save(region.sample(seed=0), path)
         assert path.stat().st_size > 2000
+
+
+@pytest.mark.parametrize("region", [fl.lozenge.hexagon_region(3, 2, 2), fl.domino.aztec_diamond(3)])
+def test_tile_outlines_surround_the_tile_centres(region):
+    tiles = region.sample(seed=2).tiles
+    outlines = region.tile_outlines(tiles)
+    assert np.allclose(outlines.mean(axis=1), region.tile_centres(tiles))

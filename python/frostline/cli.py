@@ -346,12 +346,17 @@ def _count_region(args) -> int:
 
 def _density(args) -> int:
     from . import plot
-    from .exact import class_densities
+    from .exact.local_statistics import placement_probabilities
 
     _check_outputs(args.picture, None)
     region = _region(args)
-    densities = class_densities(region)
-    plot.save_densities(densities, args.picture, title=region.summary())
+    tiles, probabilities = placement_probabilities(region)
+    classes = region.classify(tiles)
+    names = region.tile_classes
+    densities = {name: (region.tile_centres(tiles[classes == k]), probabilities[classes == k])
+                 for k, name in enumerate(names)}
+    outlines = {name: region.tile_outlines(tiles[classes == k]) for k, name in enumerate(names)}
+    plot.save_densities(densities, args.picture, title=region.summary(), outlines=outlines)
     print(f"exact densities of {region.summary()} written to {args.picture}")
     return 0
 
@@ -371,7 +376,8 @@ def _predict(args) -> int:
     print(file=sys.stderr)
     print(f"{region.summary()}: log Z ~ {shape.log_partition_function:.6f} (continuum estimate); {shape.report}")
     curves = [line * shape.scale for line in shape.frozen_boundary]
-    plot.save_densities(shape.densities, args.picture, curves=curves,
+    outlines = {name: region.tile_outlines(tiles) for name, tiles in shape.tiles.items()}
+    plot.save_densities(shape.densities, args.picture, curves=curves, outlines=outlines,
                         title=f"predicted densities, {region.summary()}")
     print(f"predicted densities and frozen boundary written to {args.picture}")
     return 0

@@ -136,6 +136,10 @@ class Region(abc.ABC):
         """Plane coordinates (k, 2) of the centres of tiles."""
         raise NotImplementedError(f"{type(self).__name__} does not place tiles in the plane")
 
+    def tile_outlines(self, tiles: np.ndarray) -> np.ndarray:
+        """Corners (k, m, 2) of each tile in plane coordinates (the frame of :meth:`tile_centres`)."""
+        raise NotImplementedError(f"{type(self).__name__} does not draw tile outlines")
+
     @property
     def scale(self) -> float:
         """The region's linear size (lattice units), for scaled coordinates."""

@@ -58,7 +58,7 @@ def limit_setup(region: Any) -> LimitSetup:
     def edge_of(index: np.ndarray, side: str) -> np.ndarray:
         return np.where(black[index], BLACK_EDGE[side], WHITE_EDGE[side])
 
-    def tile_densities(p: np.ndarray) -> Dict[str, Tuple[np.ndarray, np.ndarray]]:
+    def tile_densities(p: np.ndarray) -> Dict[str, Tuple[np.ndarray, np.ndarray, np.ndarray]]:
         tiles, probs = [], []
         for (dr, dc), first_side, second_side in (((0, 1), "right", "left"), ((1, 0), "bottom", "top")):
             pairs = mask[: R - dr, : C - dc] & mask[dr:, dc:]
@@ -70,7 +70,8 @@ def limit_setup(region: Any) -> LimitSetup:
         prob = np.clip(np.concatenate(probs), 0.0, 1.0)
         classes = region.classify(t)
         centres = region.tile_centres(t)
-        return {name: (centres[classes == k], prob[classes == k]) for k, name in enumerate(region.tile_classes)}
+        return {name: (centres[classes == k], prob[classes == k], t[classes == k])
+                for k, name in enumerate(region.tile_classes)}
 
     def to_heights(h: np.ndarray) -> np.ndarray:
         flat = np.full((R + 1) * width, np.nan)

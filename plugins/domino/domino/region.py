@@ -409,6 +409,13 @@ class DominoRegion(VariationalRegion, Region):
         h, v = self.weights if self.weights is not None else (None, None)
         return np.asarray(kasteleyn_matrix(self.mask, h, v), dtype=float)
 
+    def tile_outlines(self, tiles: np.ndarray) -> np.ndarray:
+        """Domino rectangles (k, 4, 2) in the frame of :meth:`tile_centres`."""
+        from .drawing import domino_rectangles
+
+        x0, y0 = self.plane_origin
+        return domino_rectangles(tiles) + np.array([-x0, y0])
+
     def tile_centres(self, tiles: np.ndarray) -> np.ndarray:
         t = np.asarray(tiles, dtype=float).reshape(-1, 2, 2).mean(axis=1)
         x0, y0 = self.plane_origin

@@ -57,7 +57,7 @@ def limit_setup(region: Any) -> LimitSetup:
     down_index = np.full(g.down.shape, -1, dtype=np.int64)
     down_index[where[1][:, 0], where[1][:, 1]] = n_up + np.arange(len(kinds[1]))
 
-    def tile_densities(p: np.ndarray) -> Dict[str, Tuple[np.ndarray, np.ndarray]]:
+    def tile_densities(p: np.ndarray) -> Dict[str, Tuple[np.ndarray, np.ndarray, np.ndarray]]:
         out = {}
         for t, (dx, dy) in enumerate(PARTNER):
             up = where[0]
@@ -66,7 +66,7 @@ def limit_setup(region: Any) -> LimitSetup:
             ups = np.flatnonzero(ok)
             prob = 0.5 * (p[ups, UP_EDGE[t]] + p[partner[ok], DOWN_EDGE[t]])
             tiles = np.stack([up[ok, 0] + ox, up[ok, 1] + oy, np.full(ok.sum(), t)], axis=1)
-            out[TILE_CLASSES[t]] = (lozenge_centres(tiles), np.clip(prob, 0.0, 1.0))
+            out[TILE_CLASSES[t]] = (lozenge_centres(tiles), np.clip(prob, 0.0, 1.0), tiles)
         return out
 
     def to_heights(h: np.ndarray) -> np.ndarray:
@@ -132,7 +132,7 @@ def refined_setup(region: Any, m: int) -> LimitSetup:
     n_up = len(g_up)
     counts = np.bincount(fine_parent, minlength=n_cells).astype(float)
 
-    def tile_densities(p: np.ndarray) -> Dict[str, Tuple[np.ndarray, np.ndarray]]:
+    def tile_densities(p: np.ndarray) -> Dict[str, Tuple[np.ndarray, np.ndarray, np.ndarray]]:
         coarse_p = np.zeros((n_cells, 3))
         for t in range(3):
             fine_t = np.concatenate([p[:n_up_fine, UP_EDGE[t]], p[n_up_fine:, DOWN_EDGE[t]]])

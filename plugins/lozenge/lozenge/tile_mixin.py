@@ -4,7 +4,7 @@ from __future__ import annotations
 import numpy as np
 
 from .drawing import draw_lozenges
-from .tiles import TILE_CLASSES, lozenge_centres
+from .tiles import TILE_CLASSES, lozenge_centres, lozenge_polygons
 
 
 class LozengeTiles:
@@ -15,6 +15,9 @@ class LozengeTiles:
 
     def tile_centres(self, tiles: np.ndarray) -> np.ndarray:
         return lozenge_centres(tiles)
+
+    def tile_outlines(self, tiles: np.ndarray) -> np.ndarray:
+        return lozenge_polygons(tiles)
 
     def classify(self, tiles: np.ndarray) -> np.ndarray:
         return np.asarray(tiles)[:, 2].astype(np.int8)

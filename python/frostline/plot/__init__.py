@@ -8,6 +8,8 @@ from __future__ import annotations
 import os
 from typing import Any, Optional
 
+import numpy as np
+
 from ..toolkit import palette
 
 FORMATS = (".png", ".svg", ".pdf")
@@ -45,13 +47,16 @@ def save(sample: Any, path: str | os.PathLike[str], *, size: float = 6.0, dpi: i
 
 
 def save_densities(densities: dict, path: str | os.PathLike[str], *, title: Optional[str] = None, dpi: int = 200,
-                   curves: Optional[list] = None) -> str:
+                   curves: Optional[list] = None, outlines: Optional[dict] = None) -> str:
     """One panel per tile class: tile centres coloured by their probability (0 to 1).
 
     ``densities`` maps class name to (centres (k, 2), probabilities (k,)), as
     :func:`frostline.exact.class_densities` and ``Region.limit_shape().densities``
     return; ``curves`` (polylines in the same plane coordinates, e.g. a
     predicted frozen boundary times the region's scale) are drawn on every panel.
+    ``outlines`` ({class: (k, m, 2) tile corners, in the order of the
+    densities}) draws every tile position filled, so the map follows the
+    lattice and probabilities near 1 stay visible; without it, dots.
     """
     ext = os.path.splitext(str(path))[1].lower()
     if ext not in FORMATS:
@@ -61,8 +66,20 @@ def save_densities(densities: dict, path: str | os.PathLike[str], *, title: Opti
     fig, axes = plt.subplots(1, k, figsize=(3.6 * k, 3.8), squeeze=False)
     image = None
     for ax, (name, (centres, p)) in zip(axes[0], densities.items()):
-        size = max(2.0, 3000.0 / max(len(p), 1))
-        image = ax.scatter(centres[:, 0], centres[:, 1], c=p, s=size, cmap="magma", vmin=0, vmax=1, linewidths=0)
+        if outlines is not None:
+            from matplotlib.collections import PolyCollection
+
+            cells = PolyCollection(list(outlines[name]), array=np.asarray(p), cmap="magma", linewidths=0)
+            cells.set_clim(0, 1)
+            image = ax.add_collection(cells)
+            corners = np.asarray(outlines[name]).reshape(-1, 2)
+            if len(corners):
+                ax.set_xlim(corners[:, 0].min() - 0.5, corners[:, 0].max() + 0.5)
+                ax.set_ylim(corners[:, 1].min() - 0.5, corners[:, 1].max() + 0.5)
+        else:
+            size = max(2.0, 3000.0 / max(len(p), 1))
+            image = ax.scatter(centres[:, 0], centres[:, 1], c=p, s=size, cmap="magma", vmin=0, vmax=1,
+                               linewidths=0)
         for line in curves or []:
             ax.plot(line[:, 0], line[:, 1], color=palette.PREDICTED, lw=0.8)
         ax.set_title(name)

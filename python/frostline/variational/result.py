@@ -3,13 +3,13 @@ from __future__ import annotations
 
 import warnings
 from dataclasses import dataclass
-from typing import List, Optional
+from typing import Dict, List, Optional, Tuple
 
 import numpy as np
 
 from ..errors import FrostlineWarning
 from ..toolkit.contours import marching_triangles
-from .setup import LimitSetup, TileDensities
+from .setup import LimitSetup
 from .solver import SolverProgress, SolverReport, functional, solve
 
 #: the frozen boundary is extrapolated from the level line where 1 - (largest tile probability) = FROZEN_LEVEL
@@ -27,6 +27,8 @@ class LimitShape:
     densities: {tile class: (tile centres in plane coordinates, predicted
         probability)} at every possible tile position, as
         :func:`frostline.exact.class_densities` lists them;
+    tiles: {tile class: the tile positions of ``densities``, in the layout of
+        ``Sample.tiles``};
     log_partition_function: the maximum of the discretised functional (entropy
         plus weight term, natural-log units) at the region's own size;
     report: the solver's convergence report; scale: the region's scale.
@@ -34,7 +36,8 @@ class LimitShape:
 
     heights: np.ndarray
     frozen_boundary: List[np.ndarray]
-    densities: TileDensities
+    densities: Dict[str, Tuple[np.ndarray, np.ndarray]]
+    tiles: Dict[str, np.ndarray]
     log_partition_function: float
     report: SolverReport
     scale: float
@@ -85,8 +88,11 @@ def limit_shape_of(setup: LimitSetup, *, progress: Optional[SolverProgress] = No
     p, _ = problem.densities(h)
     p = np.clip(p, 0.0, 1.0)
     liquid = _node_liquidity(problem.cells, 1.0 - p.max(axis=1), problem.n_nodes)
-    shape = LimitShape(setup.to_heights(h), [], setup.tile_densities(p), functional(problem, h) * setup.value_scale, report,
-                       setup.scale, liquid, setup.plane, setup.mesh)
+    per_class = setup.tile_densities(p)
+    densities = {name: (centres, probabilities) for name, (centres, probabilities, _) in per_class.items()}
+    tiles = {name: positions for name, (_, _, positions) in per_class.items()}
+    shape = LimitShape(setup.to_heights(h), [], densities, tiles, functional(problem, h) * setup.value_scale,
+                       report, setup.scale, liquid, setup.plane, setup.mesh)
     shape.frozen_boundary = shape.frozen_boundary_at(FROZEN_LEVEL)
     return shape
 

@@ -8,7 +8,8 @@ import numpy as np
 
 from .problem import CellProblem
 
-TileDensities = Dict[str, Tuple[np.ndarray, np.ndarray]]
+#: {tile class: (tile centres (k, 2), probabilities (k,), tiles in the layout of Sample.tiles)}
+TileDensities = Dict[str, Tuple[np.ndarray, np.ndarray, np.ndarray]]
 
 
 @dataclass
@@ -19,8 +20,9 @@ class LimitSetup:
     ``arctic_curve``, unscaled); ``mesh``: (T, 3) node triangles covering the
     region, for drawing contours; ``to_heights``: float node heights -> the
     layout and units of ``Sample.heights``; ``tile_densities``: the (C, k)
-    edge probabilities -> {class: (tile centres, probabilities)} at every tile
-    position, as :func:`frostline.exact.class_densities` gives them;
+    edge probabilities -> {class: (tile centres, probabilities, tiles)} at
+    every tile position, centres and probabilities as
+    :func:`frostline.exact.class_densities` gives them;
     ``value_scale``: log Z of the region is the functional's maximum times
     this (1 / m^2 when the problem is the region refined m times).
     """
