@@ -33,7 +33,7 @@ from ._version import __version__
 from .sample import Sample, SampleInfo
 from .seeding import SeedLike, child_sequence, normalise_seed, seed_record
 
-FORMAT = "frostline-ensemble"
+FORMAT = "frostline-ensemble-2"  # 2: seconds and report figures in one "info" row per member
 _REPORT_FIELDS = ("seconds",)  # always stored; the method's numeric report figures are added on first use
 
 
@@ -123,10 +123,10 @@ class Ensemble:
             raise IndexError(f"member {i} of an ensemble of {self.size}")
         if self._group is not None and bool(self._group["done"][i]):
             info = {"method": str(self._group.attrs["method_family"]), "kernel": str(self._group.attrs["kernel"]),
-                    "seconds": float(self._group["seconds"][i]),
-                    "seed": seed_record(child_sequence(self._root, i)).as_dict(),
-                    "report": {k: int(self._group[f"report_{k}"][i]) for k in self._group.attrs["report_fields"]},
-                    "version": __version__}
+                    "seed": seed_record(child_sequence(self._root, i)).as_dict(), "version": __version__}
+            row = np.asarray(self._group["info"][i]) if "info" in self._group else np.zeros(1)
+            info["seconds"] = float(row[0])
+            info["report"] = {k: int(v) for k, v in zip(self._group.attrs.get("report_fields", []), row[1:])}
             return Sample(region=self.region, heights=np.asarray(self._group["heights"][i]),
                           info=SampleInfo.from_dict(info))
         return self.region.sample(child_sequence(self._root, i), method=self.method)
@@ -171,8 +171,6 @@ def _open_store(store: Any, region: Any, size: int, root: np.random.SeedSequence
     # no identity record: a new store, or one whose first run died before writing it; start it afresh
     group.create_array("heights", shape=(size, *shape), chunks=(1, *shape), dtype="int32", fill_value=0,
                        compressors=_codecs(), overwrite=True)
-    group.create_array("seconds", shape=(size,), chunks=(1,), dtype="float64", fill_value=0.0,
-                       compressors=_codecs(), overwrite=True)
     group.create_array("done", shape=(size,), chunks=(1,), dtype="uint8", fill_value=0, compressors=_codecs(),
                        overwrite=True)
     group.attrs.update(identity)
@@ -195,6 +193,10 @@ def _plain(value: Any) -> Any:
 
 def _done_members(group: Any, size: int) -> np.ndarray:
     """Which members the store marks done; a mark that fails its checksum counts as not done."""
+    try:  # one read of every mark; if any chunk fails its checksum, read them one by one
+        return np.asarray(group["done"][:], dtype=bool)
+    except Exception:
+        pass
     done = np.zeros(size, dtype=bool)
     for i in range(size):
         try:
@@ -268,19 +270,23 @@ def ensemble(region: Any, size: int, seed: SeedLike = None, *, store: Any = None
 
 
 def _write_member(group: Any, i: int, heights: np.ndarray, info: Dict[str, Any]) -> None:
-    """Member i whole, then its commit mark (a kill before the mark leaves it to be recomputed)."""
+    """Member i whole (heights, then one row of seconds and report figures), then its commit mark.
+
+    Three chunk writes per member: a kill before the mark leaves the member to
+    be recomputed. The report figures are the method's integer counters, the
+    same for every member of an ensemble; their names are recorded once.
+    """
     report = {k: v for k, v in info.get("report", {}).items() if isinstance(v, (int, np.integer))}
     if "report_fields" not in group.attrs:
         group.attrs.update({"report_fields": sorted(report), "method_family": info.get("method", ""),
                             "kernel": info.get("kernel", "")})
-    for name in group.attrs["report_fields"]:
-        key = f"report_{name}"
-        if key not in group:
-            group.create_array(key, shape=(group["done"].shape[0],), chunks=(1,), dtype="int64", fill_value=0,
-                               compressors=_codecs())
-        group[key][i] = int(report.get(name, 0))
+    fields = list(group.attrs["report_fields"])
+    if "info" not in group:
+        group.create_array("info", shape=(group["done"].shape[0], 1 + len(fields)), chunks=(1, 1 + len(fields)),
+                           dtype="float64", fill_value=0.0, compressors=_codecs())
     group["heights"][i] = heights.astype(np.int32)
-    group["seconds"][i] = float(info.get("seconds", 0.0))
+    # float64 holds the integer counters exactly below 2^53 (about 9e15 site updates)
+    group["info"][i] = np.array([float(info.get("seconds", 0.0))] + [float(report.get(n, 0)) for n in fields])
     group["done"][i] = 1
 
 
