@@ -122,7 +122,7 @@ class Ensemble:
         if not 0 <= i < self.size:
             raise IndexError(f"member {i} of an ensemble of {self.size}")
         if self._group is not None and bool(self._group["done"][i]):
-            info = {"method": str(self._group.attrs["method_family"]), "kernel": str(self._group.attrs["kernel"]),
+            info: Dict[str, Any] = {"method": str(self._group.attrs["method_family"]), "kernel": str(self._group.attrs["kernel"]),
                     "seed": seed_record(child_sequence(self._root, i)).as_dict(), "version": __version__}
             row = np.asarray(self._group["info"][i]) if "info" in self._group else np.zeros(1)
             info["seconds"] = float(row[0])
