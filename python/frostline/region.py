@@ -129,7 +129,7 @@ class Region(abc.ABC):
         raise ValueError(f"{self.lattice} regions have no Kasteleyn matrix; exact local statistics need a dimer model")
 
     def kasteleyn_real(self) -> np.ndarray:
-        """A real Kasteleyn matrix whose |determinant| is the weighted tiling count (dimer models only)."""
+        """A real Kasteleyn matrix whose absolute determinant is the weighted tiling count (dimer models only)."""
         raise ValueError(f"{self.lattice} regions have no Kasteleyn matrix; exact local statistics need a dimer model")
 
     def tile_centres(self, tiles: np.ndarray) -> np.ndarray:
@@ -391,7 +391,7 @@ class Region(abc.ABC):
         """Heights in the dimer normalisation (float, NaN at entries outside the region).
 
         The normalisation in which the Gaussian free field limit has variance
-        (1 / pi^2) log |x - y| for differences: the height changes by 1 around a
+        (1 / pi^2) log(distance) for differences: the height changes by 1 around a
         vertex of the dimer graph (docs/references.md, section 4). Plugins whose
         lattice has one override this; the default raises ValueError.
         """

@@ -84,7 +84,7 @@ def kasteleyn_matrix(mask: np.ndarray, horizontal=None, vertical=None) -> np.nda
 
 
 def count_region(region, budget: Optional[float] = None, max_digits: Optional[int] = None) -> int:
-    """Exact count: closed forms for Aztec diamonds and rectangles, else |det K| with exact integers.
+    """Exact count: closed forms for Aztec diamonds and rectangles, else abs(det K) with exact integers.
 
     ``budget`` (seconds) and ``max_digits`` cap the cost (see frostline.exact.budget; None: no cap).
     """
@@ -154,7 +154,7 @@ def weighted_partition_function(region) -> Any:
 
 
 def _scaled_integer_det(k: np.ndarray, max_rows: int = 150):
-    """|det k| exactly when the float entries scale to modest integers; else None."""
+    """abs(det k) exactly when the float entries scale to modest integers; else None."""
     if k.shape[0] > max_rows:
         return None
     nonzero = k[k != 0]

@@ -155,6 +155,6 @@ class SquareGeometry:
 
 
 def aztec_mask(n: int) -> np.ndarray:
-    """The 2n x 2n mask of cells whose centres (c - n + 1/2, n - r - 1/2) satisfy |x| + |y| <= n."""
+    """The 2n x 2n mask of cells whose centres (c - n + 1/2, n - r - 1/2) satisfy abs(x) + abs(y) <= n."""
     r = np.arange(2 * n)  # rows and columns share the range: broadcast instead of two full grids
     return np.abs(r - n + 0.5)[None, :] + np.abs(n - r - 0.5)[:, None] <= n

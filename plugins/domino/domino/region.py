@@ -474,7 +474,7 @@ class DominoRegion(VariationalRegion, Region):
 
     def count(self, *, budget: Optional[float] = DEFAULT_BUDGET_SECONDS,
               max_digits: Optional[int] = DEFAULT_MAX_DIGITS) -> int:
-        """Number of domino tilings (exact): closed forms for Aztec diamonds and rectangles, else |det K|.
+        """Number of domino tilings (exact): closed forms for Aztec diamonds and rectangles, else abs(det K).
 
         Refuses (ValueError, with the estimate) a computation estimated above
         ``budget`` seconds (default 60) or a count above ``max_digits`` decimal

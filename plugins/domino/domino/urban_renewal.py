@@ -9,7 +9,7 @@ n - 1, so Z is a product of n^3/3 such factors: O(n^3) work.
 
 Conventions (docs/design.md section 3): cell (r, c) of the 2n x 2n mask, row 0 at
 the top; the Aztec diamond of order n holds the cells whose centres
-(c - n + 1/2, n - r - 1/2) satisfy |x| + |y| <= n, and every tiling has
+(c - n + 1/2, n - r - 1/2) satisfy abs(x) + abs(y) <= n, and every tiling has
 n(n + 1) dominoes. ``horizontal[r, c]`` (shape (2n, 2n - 1)) weighs the domino
 on cells (r, c), (r, c + 1); ``vertical[r, c]`` (shape (2n - 1, 2n)) the
 domino on (r, c), (r + 1, c). Entries at positions outside the diamond are

@@ -289,7 +289,7 @@ class LozengeRegion(LozengeTiles, VariationalRegion, Region):
         return float(volume_exponents(self.tiles_from_heights(least)).sum())
 
     def kasteleyn_log_offset(self) -> float:
-        """log |det K| - log Z: the offset times log q (0 for q = 1); see :meth:`dimer_system`."""
+        """log abs(det K) - log Z: the offset times log q (0 for q = 1); see :meth:`dimer_system`."""
         return 0.0 if self.q == 1.0 else self.volume_offset() * float(np.log(self.q))
 
     @property
@@ -335,7 +335,7 @@ class LozengeRegion(LozengeTiles, VariationalRegion, Region):
 
         For lozenges every face of the dual (honeycomb) graph is a hexagon, so
         the plain 0/1 bipartite adjacency matrix is a Kasteleyn matrix (Kasteleyn
-        1967; Kenyon, "Lectures on dimers", 2009) and |det| counts the tilings of
+        1967; Kenyon, "Lectures on dimers", 2009) and abs(det) counts the tilings of
         a simply connected region; pieces multiply. Exact integers.
         Refuses (ValueError, with the estimate) a determinant estimated to take
         more than ``budget`` seconds (default 60; None: no cap; Ctrl-C stops it).

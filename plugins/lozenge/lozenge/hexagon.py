@@ -112,7 +112,7 @@ class HexagonRegion(LozengeTiles, VariationalRegion, Region):
         return general.height_field(general.heights_from_tiles(tiles))
 
     def kasteleyn_log_offset(self) -> float:
-        """log |det K| - log Z = (ab(b - a) / 4) log q; see LozengeRegion.volume_offset."""
+        """log abs(det K) - log Z = (ab(b - a) / 4) log q; see LozengeRegion.volume_offset."""
         return 0.0 if self.q == 1.0 else self.a * self.b * (self.b - self.a) / 4.0 * float(np.log(self.q))
 
     @property

@@ -126,13 +126,13 @@ def izergin_korepin(n: int, a: float, b: float, c: float, digits: int = 0):
     """Domain-wall partition function by the Izergin-Korepin determinant (Korepin 1982; Izergin 1987).
 
     With a = s sin(l + e), b = s sin(l - e), c = s sin 2e (Delta = cos 2e; e and l
-    complex when |Delta| > 1, docs/references.md section 1):
+    complex when abs(Delta) > 1, docs/references.md section 1):
     Z_n = s^(n^2) (sin(l+e) sin(l-e))^(n^2) / (prod_{k<n} k!)^2 det[phi^(i+j)(l)],
     phi(l) = sin 2e / (sin(l + e) sin(l - e)) = cot(l - e) - cot(l + e), whose
     derivatives are exact polynomials in the two cotangents. The determinant
     cancels many digits (more near Delta = -1 and for large n), so the value is
     computed at increasing precision until two precisions agree to 1e-15;
-    an mpmath mpf is returned. Raises ValueError at |Delta| = 1 (use
+    an mpmath mpf is returned. Raises ValueError at abs(Delta) = 1 (use
     :func:`row_transfer`) or if no precision up to 20000 digits settles.
     """
     import mpmath

@@ -7,8 +7,8 @@ Gaussian free field", Ann. Probab. 29, 2001; "Height fluctuations in the
 honeycomb dimer model", Comm. Math. Phys. 281, 2008):
 
 - the variance at a point grows like (1 / (2 pi^2)) log n with the size n;
-- the variance of a difference grows like (1 / pi^2) log |x - y| for
-  1 << |x - y| << n.
+- the variance of a difference grows like (1 / pi^2) log(dist(x, y)) for
+  1 << dist(x, y) << n.
 
 Both converge slowly (docs/references.md, section 4: over n = 8..64 the
 exact pointwise slope is 0.0626 against 0.0507), so :func:`variance_growth`

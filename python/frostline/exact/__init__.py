@@ -7,7 +7,7 @@
 - ``mean_heights(region)``: the exact expected height at every point
 - ``class_densities(region)``: the same grouped by tile class, with tile centres
 - ``log_partition_function(region)``: log of the (weighted) tiling count with a checked error bound
-- ``certified_log_abs_det(matrix)``: log |det| with its bound (float, exact integers or intervals)
+- ``certified_log_abs_det(matrix)``: log abs(det) with its bound (float, exact integers or intervals)
 - ``formulas``: the closed forms (MacMahon, Aztec, rectangles, ASM, Izergin-Korepin)
 """
 from . import formulas

@@ -3,7 +3,7 @@
 Kasteleyn matrices of lattice regions are often very badly conditioned (an
 Aztec diamond of order 30 with a notch reaches a condition number of 2e16), so a
 plain floating-point determinant can be wrong in the third digit with no sign
-of it. :func:`certified_log_abs_det` returns ``log |det A|`` together with a
+of it. :func:`certified_log_abs_det` returns ``log abs(det A)`` together with a
 bound on its error, and raises rather than return a value that misses the
 requested tolerance. Three routes, cheapest first:
 
@@ -43,7 +43,7 @@ _INTERVAL_ROWS = 2500
 
 @dataclass(frozen=True)
 class CertifiedLog:
-    """``log |det|`` with an absolute error bound and the route that produced it."""
+    """``log abs(det)`` with an absolute error bound and the route that produced it."""
 
     value: float
     error: float
@@ -55,7 +55,7 @@ ROUTES = ("float", "exact", "interval")
 
 def certified_log_abs_det(matrix: np.ndarray, tolerance: float = 1e-9, max_bits: int = 2048,
                           routes: Sequence[str] = ROUTES) -> CertifiedLog:
-    """Natural log of |det A| with an absolute error below ``tolerance`` (see the module docstring).
+    """Natural log of abs(det A) with an absolute error below ``tolerance`` (see the module docstring).
 
     ``routes`` limits the routes tried, in their fixed order (for tests and
     for callers that want, say, only rigorous enclosures: ``("interval",)``).

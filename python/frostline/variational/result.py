@@ -20,18 +20,28 @@ FROZEN_LEVEL = 0.2
 class LimitShape:
     """The variational principle's prediction for one region (docs/limit_shapes.md).
 
-    heights: the predicted mean height at every point, float, in the layout and
-        units of ``Sample.heights`` (NaN outside the region);
-    frozen_boundary: the predicted frozen/liquid boundary as polylines in
-        scaled coordinates (the frame of ``region.arctic_curve() / region.scale``);
-    densities: {tile class: (tile centres in plane coordinates, predicted
+    Attributes
+    ----------
+    heights : ndarray
+        The predicted mean height at every point, float, in the layout and
+        units of ``Sample.heights`` (NaN outside the region).
+    frozen_boundary : list of ndarray
+        The predicted frozen/liquid boundary as polylines in scaled
+        coordinates (the frame of ``region.arctic_curve() / region.scale``).
+    densities : dict
+        {tile class: (tile centres in plane coordinates, predicted
         probability)} at every possible tile position, as
-        :func:`frostline.exact.class_densities` lists them;
-    tiles: {tile class: the tile positions of ``densities``, in the layout of
-        ``Sample.tiles``};
-    log_partition_function: the maximum of the discretised functional (entropy
-        plus weight term, natural-log units) at the region's own size;
-    report: the solver's convergence report; scale: the region's scale.
+        :func:`frostline.exact.class_densities` lists them.
+    tiles : dict
+        {tile class: the tile positions of ``densities``, in the layout of
+        ``Sample.tiles``}.
+    log_partition_function : float
+        The maximum of the discretised functional (entropy plus weight term,
+        natural-log units) at the region's own size.
+    report : SolverReport
+        The solver's convergence report.
+    scale : float
+        The region's scale.
     """
 
     heights: np.ndarray
