@@ -21,6 +21,7 @@ CASES = {
     "domino region": ("fl.domino.aztec_diamond(1200)", "36 * 2401 ** 2"),
     "domino engine": ("fl.domino.aztec_diamond(600)._engine()", "450 * 1201 ** 2"),
     "square ice": ("fl.square_ice.domain_wall(900)", "640 * 901 ** 2"),
+    "lozenge region": ("fl.lozenge.hexagon_region(300, 300, 300)", "560 * 6 * 300 ** 2 + 10 ** 6"),
 }
 
 
@@ -35,6 +36,7 @@ def test_estimate_bounds_the_measured_peak(name):
                 if line.startswith("VmHWM:"):
                     return int(line.split()[1]) * 1024
         fl.domino.aztec_diamond(2)._engine(); fl.square_ice.domain_wall(2)  # imports and first-use caches
+        fl.lozenge.hexagon_region(2, 2, 2)
         before = high_water()
         value = {build}
         print(json.dumps({{"peak": high_water() - before, "estimate": {estimate}}}))

@@ -21,6 +21,8 @@ import numpy as np
 
 from frostline._limits import check_memory
 
+from .geometry import BYTES_PER_TRIANGLE
+
 DIRECTIONS = {"e": (1, 0), "ne": (0, 1), "nw": (-1, 1), "w": (-1, 0), "sw": (0, -1), "se": (1, -1)}
 _TOKEN = re.compile(r"\s*(?:(\d+)|([A-Za-z]+)|(\()|(\))|(,))")
 
@@ -156,7 +158,7 @@ def enclosed_triangles(steps: Sequence[Tuple[int, int]], start: Tuple[int, int] 
     # shoelace area in lattice parallelograms; each holds two unit triangles
     x, y = pts[:, 0].astype(float), pts[:, 1].astype(float)
     triangles = abs(float(np.dot(x[:-1], y[1:]) - np.dot(x[1:], y[:-1])))
-    check_memory(int(400 * triangles), f"a region of about {triangles:.3g} triangles")
+    check_memory(int(BYTES_PER_TRIANGLE * triangles), f"a region of about {triangles:.3g} triangles")
     a, b = pts[:-1], pts[1:]
     moving = a[:, 1] != b[:, 1]
     a, b = a[moving], b[moving]

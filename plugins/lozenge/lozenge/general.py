@@ -29,7 +29,7 @@ from frostline.model import HeightModel
 from frostline.region import Region
 from frostline.variational import VariationalRegion
 
-from .geometry import EDGE_ENDS, PARTNER, TriangleGrid
+from .geometry import BYTES_PER_TRIANGLE, EDGE_ENDS, PARTNER, TriangleGrid
 from .parameters import QLike, weight
 from .tile_mixin import LozengeTiles
 from .tiles import lozenge_dimer_system
@@ -47,7 +47,7 @@ class LozengeRegion(LozengeTiles, VariationalRegion, Region):
     def __init__(self, triangles: np.ndarray, q: QLike = 1.0, *, description: Optional[Dict[str, Any]] = None):
         self.q, self._q_exact = weight(q)
         tri = _as_triangles(triangles)
-        check_memory(400 * len(tri) + 10**6, f"a region of {len(tri)} triangles")
+        check_memory(BYTES_PER_TRIANGLE * len(tri) + 10**6, f"a region of {len(tri)} triangles")
         self.triangles = tri
         self._description = description or {"shape": "triangles"}
         n_up = int((tri[:, 2] == 0).sum())
