@@ -46,6 +46,19 @@ def save(sample: Any, path: str | os.PathLike[str], *, size: float = 6.0, dpi: i
     return str(path)
 
 
+def _tile_icon(ax: Any, corners: np.ndarray) -> None:
+    """The shape of the panel's tile class, drawn small in the panel's top-left corner."""
+    from matplotlib.patches import Polygon
+
+    icon = ax.inset_axes([0.0, 0.86, 0.14, 0.14])
+    icon.add_patch(Polygon(corners - corners.mean(axis=0), closed=True, facecolor=palette.SERIES[2],
+                           edgecolor=palette.SERIES[0], linewidth=0.6))
+    icon.set_xlim(-1.2, 1.2)
+    icon.set_ylim(-1.2, 1.2)
+    icon.set_aspect("equal")
+    icon.set_axis_off()
+
+
 def save_densities(densities: dict, path: str | os.PathLike[str], *, title: Optional[str] = None, dpi: int = 200,
                    curves: Optional[list] = None, outlines: Optional[dict] = None) -> str:
     """One panel per tile class: tile centres coloured by their probability (0 to 1).
@@ -76,6 +89,7 @@ def save_densities(densities: dict, path: str | os.PathLike[str], *, title: Opti
             if len(corners):
                 ax.set_xlim(corners[:, 0].min() - 0.5, corners[:, 0].max() + 0.5)
                 ax.set_ylim(corners[:, 1].min() - 0.5, corners[:, 1].max() + 0.5)
+                _tile_icon(ax, np.asarray(outlines[name])[0])
         else:
             size = max(2.0, 3000.0 / max(len(p), 1))
             image = ax.scatter(centres[:, 0], centres[:, 1], c=p, s=size, cmap="magma", vmin=0, vmax=1,
