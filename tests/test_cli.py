@@ -193,3 +193,8 @@ def test_method_choices_follow_the_shape(capsys):
     assert main(["sample", "hexagon", "3", "3", "3", "--method", "box", "--seed", "1"]) == 0
     with pytest.raises(SystemExit):
         main(["sample", "square_ice", "4", "--method", "shuffling"])
+
+
+def test_hexagon_asks_for_three_sides(capsys):
+    assert main(["sample", "hexagon", "3", "3"]) == 2
+    assert "needs three side lengths A B C" in capsys.readouterr().err

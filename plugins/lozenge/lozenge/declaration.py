@@ -26,10 +26,21 @@ def _demo(size: int, q: Optional[float]):
     q = q if q is not None else math.exp(-2.0 / max(size, 1))
 
     def volume(sample) -> str:
-        return (f"volume (cubes)  {int(sample.heights.sum())} of {size ** 3} (uniform limit shape: half the box)")
+        return f"volume (cubes)  {int(sample.heights.sum())} of {size ** 3} (uniform limit shape: half the box)"
+
+    def weighted_volume(sample) -> str:
+        return f"volume (cubes)  {int(sample.heights.sum())} of {size ** 3}"
 
     return [("hexagon-uniform", hexagon(size, size, size), f"uniform, {size}x{size}x{size}", volume),
-            ("hexagon-weighted", hexagon(size, size, size, q=q), f"weighted, {size}x{size}x{size}, q = {q:.4g}", volume)]
+            ("hexagon-weighted", hexagon(size, size, size, q=q), f"weighted, {size}x{size}x{size}, q = {q:.4g}",
+             weighted_volume)]
+
+
+def _hexagon(sides, q: float = 1.0):
+    if len(sides) != 3:
+        raise ValueError(f"a hexagon needs three side lengths A B C (plane partitions in an A x B x C box), "
+                         f"got {len(sides)}: {' '.join(str(v) for v in sides)}")
+    return hexagon(sides[0], sides[1], sides[2], q=q)
 
 
 LATTICE = LatticeSpec(
@@ -37,8 +48,8 @@ LATTICE = LatticeSpec(
     summary="lozenge tilings of the triangular lattice (plane partitions, stacks of cubes)",
     shapes=(
         Shape("hexagon", "the A, B, C hexagon (plane partitions in a box)",
-              lambda sides, q=1.0: hexagon(sides[0], sides[1], sides[2], q=q),
-              (Argument("sides", "three side lengths A B C: plane partitions in an A x B x C box", nargs=3,
+              _hexagon,
+              (Argument("sides", "three side lengths A B C: plane partitions in an A x B x C box", nargs="+",
                         metavar="SIDE"), _Q),
               "Lozenge tilings of the A, B, C hexagon = plane partitions in an A x B x C box.", methods=("box",)),
         Shape("path", "the region inside a boundary path", _path,
