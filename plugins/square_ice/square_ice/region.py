@@ -19,6 +19,7 @@ position of vertex (i, j) is (j + 1/2, n - i - 1/2). ``Sample.matrix``,
 from __future__ import annotations
 
 import numbers
+import re
 from fractions import Fraction
 from typing import Any, Callable, Dict, Optional, Tuple
 
@@ -223,10 +224,12 @@ class SquareIceRegion(Region):
         """Coupling from the past is exact only for a monotone heat bath (c >= max(a, b))."""
         report = self.monotonicity()
         if not report.monotone:
+            # the checker speaks of engine nodes: name the corners instead, and leave out its neighbour table
+            where = self._model._relabel(re.sub(r" with neighbours \{[^}]*\}", "", report.detail))
             raise ValueError(
                 f"exact sampling needs a monotone heat bath, and the weights (a, b, c) = ({self.a:g}, {self.b:g}, "
-                f"{self.c:g}) give a non-monotone one (the checker found: {report.detail}). Coupling from the past "
-                "would not be exact here; use chain() and its diagnostics, or choose c >= max(a, b)")
+                f"{self.c:g}) give a non-monotone one: {where}. Coupling from the past would not be exact here; "
+                "use chain() and its diagnostics, or choose c >= max(a, b)")
 
     def exact_methods(self) -> Dict[str, ExactMethod]:
         """``"cftp"``: the corner-grid kernel; ``"generic"``: the reference engine (same sample)."""
