@@ -26,4 +26,5 @@ sphinx_gallery_conf = {
     "filename_pattern": r"/plot_",
     "download_all_examples": False,
     "remove_config_comments": True,
+    "write_computation_times": False,   # no timing file in the source tree
 }

@@ -70,6 +70,20 @@ def test_a_corrupted_chunk_is_recomputed_not_read(tmp_path):
     np.testing.assert_array_equal(again.sums[0], full.sums[0])
 
 
+def test_a_corrupted_info_row_is_recomputed_too(tmp_path):
+    import zarr
+
+    path = tmp_path / "i.zarr"
+    fl.ensemble(REGION, 6, seed=1, store=path, workers=1)
+    target = [p for p in sorted((path / "info" / "c" / "4").rglob("*")) if p.is_file()][0]
+    data = bytearray(target.read_bytes())
+    data[len(data) // 2] ^= 0xFF
+    target.write_bytes(bytes(data))
+    broken = fl.ensemble(REGION, 6, seed=1, store=path, workers=1)
+    assert np.array_equal(broken[4].heights, REGION.samples(6, seed=1)[4].heights)   # redrawn, then stored
+    assert float(np.asarray(zarr.open_group(str(path))["info"][4])[0]) > 0
+
+
 def test_a_killed_run_resumes_without_loss_or_duplicates(tmp_path):
     script = Path(__file__).with_name("ensemble_kill_script.py")
     size = 250

@@ -61,3 +61,21 @@ def test_tile_outlines_surround_the_tile_centres(region):
     tiles = region.sample(seed=2).tiles
     outlines = region.tile_outlines(tiles)
     assert np.allclose(outlines.mean(axis=1), region.tile_centres(tiles))
+
+
+def test_lozenge_raster_is_bounded_and_independent_of_tile_order():
+    tiles = fl.lozenge.tiles_of_plane_partition(np.zeros((40, 30), dtype=int), 20)
+    shuffled = tiles[np.random.default_rng(0).permutation(len(tiles))]
+    first, extent = raster_lozenges(tiles, pixels=300)
+    second, extent2 = raster_lozenges(shuffled, pixels=300)
+    assert extent == extent2 and np.array_equal(first, second)
+    assert max(first.shape[:2]) == 300
+    # partly covered pixels keep the tone of what covers them (no fading towards white)
+    partial = (first[..., 3] > 0) & (first[..., 3] < 1)
+    tones = np.array([hex_to_rgb(c) for c in palette.LOZENGE_FACES])
+    nearest = np.min(np.abs(first[partial][:, None, :3] - tones[None]).sum(axis=2), axis=1)
+    assert partial.any() and np.median(nearest) < 1e-6
+    # a long thin column of lozenges: the picture stays pixels long, whatever the bounding box
+    k = np.arange(100000)
+    image, _ = raster_lozenges(np.stack([-k, 2 * k, np.ones_like(k)], axis=1), pixels=500)
+    assert max(image.shape[:2]) == 500

@@ -144,7 +144,7 @@ def _parser() -> argparse.ArgumentParser:
     _add_shapes(count, sampling=False, counting=True)
     density = commands.add_parser("density", help="draw the exact density of each tile class of a region",
                                   description="Exact placement probabilities (inverse Kasteleyn matrix) drawn as one "
-                                              "panel per tile class; lozenge regions with q = 1 and domino regions.")
+                                              "panel per tile class; lozenge regions (any q) and domino regions.")
     _add_shapes(density, sampling=False, picture_required=True)
     predict = commands.add_parser(
         "predict", help="draw the limit shape the variational principle predicts for a region",

@@ -9,8 +9,9 @@ variances, and the members need not be kept.
 
 A store (a path or a zarr store; zarr and, for clusters, dask.distributed
 are the optional extra ``frostline[cluster]``) is a zarr group: ``heights``
-of shape (size, ...), one member per chunk, the per-member report figures as
-arrays of their own, and ``done``, written last for each member as its
+of shape (size, ...), one member per chunk, ``info`` with one row per member
+(seconds, then the method's integer report figures, named in the attribute
+``report_fields``), and ``done``, written last for each member as its
 commit mark; chunks carry a crc32c checksum. Attributes hold the region's
 description, the seed record and frostline's version, written once by the
 coordinating process. Re-running the same call on an existing store computes
@@ -121,15 +122,26 @@ class Ensemble:
         i = _check_count(i, "member index")
         if not 0 <= i < self.size:
             raise IndexError(f"member {i} of an ensemble of {self.size}")
-        if self._group is not None and bool(self._group["done"][i]):
-            info: Dict[str, Any] = {"method": str(self._group.attrs["method_family"]), "kernel": str(self._group.attrs["kernel"]),
-                    "seed": seed_record(child_sequence(self._root, i)).as_dict(), "version": __version__}
+        stored = self._stored(i)
+        if stored is not None:
+            return stored
+        return self.region.sample(child_sequence(self._root, i), method=self.method)
+
+    def _stored(self, i: int) -> Optional[Sample]:
+        """Member i from the store, or None when it is not there or a chunk fails its checksum."""
+        try:
+            if self._group is None or not bool(self._group["done"][i]):
+                return None
+            info: Dict[str, Any] = {"method": str(self._group.attrs["method_family"]),
+                                    "kernel": str(self._group.attrs["kernel"]),
+                                    "seed": seed_record(child_sequence(self._root, i)).as_dict(), "version": __version__}
             row = np.asarray(self._group["info"][i]) if "info" in self._group else np.zeros(1)
             info["seconds"] = float(row[0])
             info["report"] = {k: int(v) for k, v in zip(self._group.attrs.get("report_fields", []), row[1:])}
             return Sample(region=self.region, heights=np.asarray(self._group["heights"][i]),
                           info=SampleInfo.from_dict(info))
-        return self.region.sample(child_sequence(self._root, i), method=self.method)
+        except Exception:   # a chunk failing its checksum: draw the member again (the same sample)
+            return None
 
     @property
     def mean_heights(self) -> np.ndarray:
@@ -241,6 +253,8 @@ def ensemble(region: Any, size: int, seed: SeedLike = None, *, store: Any = None
         for i in np.flatnonzero(done):
             try:  # a chunk that fails its checksum is not data: that member is drawn again
                 heights = np.asarray(group["heights"][int(i)])
+                if "info" in group:
+                    np.asarray(group["info"][int(i)])
             except Exception:
                 done[i] = False
                 continue
@@ -358,6 +372,8 @@ def store_summary(store: Any) -> Dict[str, Any]:
     for i in np.flatnonzero(_done_members(group, size)):
         try:
             total += np.asarray(group["heights"][int(i)], dtype=np.int64)
+            if "info" in group:
+                np.asarray(group["info"][int(i)])
         except Exception:  # a chunk failing its checksum is not counted
             continue
         members += 1

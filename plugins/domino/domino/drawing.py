@@ -57,8 +57,8 @@ def raster_dominoes(tiles: np.ndarray, classes: np.ndarray, *, tones: Sequence[s
         raise ValueError("there are no dominoes to draw")
     r0, c0 = t[:, :, 0].min(), t[:, :, 1].min()
     rows, cols = t[:, :, 0].max() - r0 + 1, t[:, :, 1].max() - c0 + 1
-    image = np.zeros((rows, cols, 4))
-    rgba = np.array([(*hex_to_rgb(c), 1.0) for c in tones])
+    image = np.zeros((rows, cols, 4), dtype=np.float32)
+    rgba = np.array([(*hex_to_rgb(c), 1.0) for c in tones], dtype=np.float32)
     colour = rgba[np.asarray(classes, dtype=np.int64)]
     for k in (0, 1):
         image[t[:, k, 0] - r0, t[:, k, 1] - c0] = colour

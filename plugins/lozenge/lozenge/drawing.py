@@ -8,7 +8,7 @@ import numpy as np
 from frostline.toolkit import palette
 from frostline.toolkit.drawing import RASTER_TILES, add_key, frame, hex_to_rgb, show_raster
 
-from .tiles import DOWN_PARTNER, SQRT3_2, lozenge_polygons
+from .tiles import DOWN_PARTNER, LOZENGE_CORNERS, SQRT3_2, lozenge_polygons, plane_points
 
 FACE_TONES = palette.LOZENGE_FACES  # cube tops pale, the two visible sides in two darker tones
 #: what each lozenge type is in the stack-of-cubes picture (tiles.tiles_of_plane_partition)
@@ -55,52 +55,72 @@ def draw_lozenges(tiles: np.ndarray, ax: Any = None, *, tones: Sequence[str] = F
 
 def raster_lozenges(tiles: np.ndarray, pixels: int = 2400, *, tones: Sequence[str] = FACE_TONES,
                     oversample: int = 2) -> tuple:
-    """An RGBA image of the tiling, ``pixels`` wide, and its extent (x0, x1, y0, y1) in plane coordinates.
+    """An RGBA image of the tiling (float32, longer side ``pixels``) and its extent (x0, x1, y0, y1), plane units.
 
     Each pixel is split into ``oversample``^2 points; a point lies in the unit
     triangle found from its lattice coordinates (up when the fractional parts
-    sum to less than 1), whose lozenge gives the colour; the pixel is their
-    mean, so lozenges smaller than a pixel blend into the shading of the
-    surface instead of aliasing. Outside the region: transparent.
+    sum to less than 1), whose lozenge gives the colour, looked up among the
+    tiles' sorted triangle keys (memory in proportion to the tiles, whatever
+    their bounding box). A pixel is the coverage-weighted mean of its points,
+    so lozenges smaller than a pixel blend into the shading of the surface and
+    edge pixels keep the tile's tone; outside the region it is transparent.
     """
     tiles = np.asarray(tiles, dtype=np.int64).reshape(-1, 3)
     if len(tiles) == 0:
         raise ValueError("there are no lozenges to draw")
-    polygons = lozenge_polygons(tiles[:: max(1, len(tiles) // 20000)])
-    corners = np.concatenate([lozenge_polygons(tiles[np.argsort(tiles[:, 0])[[0, -1]]]).reshape(-1, 2),
-                              lozenge_polygons(tiles[np.argsort(tiles[:, 1])[[0, -1]]]).reshape(-1, 2),
-                              polygons.reshape(-1, 2)])
-    x0, y0 = corners.min(axis=0) - 1.0
-    x1, y1 = corners.max(axis=0) + 1.0
-    width = pixels
-    height = max(1, int(round(pixels * (y1 - y0) / (x1 - x0))))
-    # which lozenge type covers each unit triangle: up[x, y] and down[x, y] on a padded grid
-    lo = tiles[:, :2].min(axis=0) - 2
-    hi = tiles[:, :2].max(axis=0) + 2
-    shape = tuple(int(v) for v in (hi - lo + 1))
-    up = np.full(shape, -1, dtype=np.int8)
-    down = np.full(shape, -1, dtype=np.int8)
-    up[tiles[:, 0] - lo[0], tiles[:, 1] - lo[1]] = tiles[:, 2]
+    # exact extent: every corner of every lozenge, one offset at a time
+    x0 = y0 = np.inf
+    x1 = y1 = -np.inf
+    for t in range(3):
+        sel = tiles[tiles[:, 2] == t, :2]
+        for dx, dy in LOZENGE_CORNERS[t]:
+            corner = plane_points(sel + np.array([dx, dy]))
+            if len(corner):
+                x0, x1 = min(x0, corner[:, 0].min()), max(x1, corner[:, 0].max())
+                y0, y1 = min(y0, corner[:, 1].min()), max(y1, corner[:, 1].max())
+    pad = 0.5
+    x0, x1, y0, y1 = x0 - pad, x1 + pad, y0 - pad, y1 + pad
+    aspect = (y1 - y0) / (x1 - x0)
+    if aspect >= 1.0:
+        height, width = pixels, max(1, int(round(pixels / aspect)))
+    else:
+        width, height = pixels, max(1, int(round(pixels * aspect)))
+    # triangle key: (x, y, s) -> lozenge type, sorted for searchsorted
     partner = tiles[:, :2] + DOWN_PARTNER[tiles[:, 2]]
-    down[partner[:, 0] - lo[0], partner[:, 1] - lo[1]] = tiles[:, 2]
-    palette_rgba = np.array([(*hex_to_rgb(c), 1.0) for c in tones] + [(1.0, 1.0, 1.0, 0.0)])
-    image = np.zeros((height, width, 4))
+    cells = np.concatenate([tiles[:, :2], partner])
+    lo = cells.min(axis=0)
+    span = int(cells[:, 1].max() - lo[1] + 2)
+
+    def key(p: np.ndarray, q: np.ndarray, s: np.ndarray) -> np.ndarray:
+        return ((p - lo[0]) * span + (q - lo[1])) * 2 + s
+
+    keys = np.concatenate([key(tiles[:, 0], tiles[:, 1], np.zeros(len(tiles), np.int64)),
+                           key(partner[:, 0], partner[:, 1], np.ones(len(tiles), np.int64))])
+    kinds = np.concatenate([tiles[:, 2], tiles[:, 2]])
+    order = np.argsort(keys)
+    keys, kinds = keys[order], kinds[order]
+    colours = np.array([hex_to_rgb(c) for c in tones], dtype=np.float32)
+    image = np.zeros((height, width, 4), dtype=np.float32)
     step_x, step_y = (x1 - x0) / width, (y1 - y0) / height
     offsets = (np.arange(oversample) + 0.5) / oversample
     for row_start in range(0, height, 256):
         rows = np.arange(row_start, min(height, row_start + 256))
-        acc = np.zeros((len(rows), width, 4))
+        rgb = np.zeros((len(rows), width, 3), dtype=np.float32)
+        cover = np.zeros((len(rows), width), dtype=np.float32)
         for oy in offsets:
-            Y = (y1 - (rows + oy) * step_y)[:, None]
+            y = (y1 - (rows + oy) * step_y)[:, None]
             for ox in offsets:
-                X = (x0 + (np.arange(width) + ox) * step_x)[None, :]
-                j = Y / SQRT3_2
-                i = X - 0.5 * j
+                x = (x0 + (np.arange(width) + ox) * step_x)[None, :]
+                j = y / SQRT3_2
+                i = x - 0.5 * j
                 fi, fj = np.floor(i), np.floor(j)
-                is_up = (i - fi) + (j - fj) < 1.0
-                p = np.clip(fi.astype(np.int64) - lo[0], 0, shape[0] - 1)
-                q = np.clip(fj.astype(np.int64) - lo[1], 0, shape[1] - 1)
-                kind = np.where(is_up, up[p, q], down[p, q]).astype(np.int64)
-                acc += palette_rgba[np.where(kind < 0, len(tones), kind)]
-        image[rows - 0] = acc / oversample ** 2
-    return image, (x0, x1, y0, y1)
+                s = ((i - fi) + (j - fj) >= 1.0).astype(np.int64)
+                k = key(fi.astype(np.int64), fj.astype(np.int64), s)
+                at = np.clip(np.searchsorted(keys, k), 0, len(keys) - 1)
+                inside = keys[at] == k
+                rgb += np.where(inside[..., None], colours[kinds[at]], 0.0)
+                cover += inside
+        with np.errstate(invalid="ignore", divide="ignore"):
+            image[rows, :, :3] = np.where(cover[..., None] > 0, rgb / np.maximum(cover, 1)[..., None], 1.0)
+        image[rows, :, 3] = cover / oversample ** 2
+    return image, (float(x0), float(x1), float(y0), float(y1))

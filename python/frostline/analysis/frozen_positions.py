@@ -16,8 +16,16 @@ Centring and scale: Johansson's constants are not built in. The mean is
 compared with a predicted crossing point (for example where the line meets
 ``region.limit_shape().frozen_boundary`` or a published ``arctic_curve``),
 and the standardised positions with F2 (:func:`tracy_widom_cdf`) by their
-Kolmogorov distance after matching mean and deviation (a shape check, not a
-test of the constants).
+Kolmogorov distance after matching mean and deviation. Orientation: a liquid
+region reaching further into the frozen one shortens the frozen run, so the
+run is a constant minus a Tracy-Widom variable, and the positions are compared
+with -TW. Positions sit on a lattice (one tile apart), so each is spread
+uniformly over its lattice step first (a fixed-seed jitter) before the
+comparison. With a few hundred samples this is a shape check: it tells a
+Tracy-Widom-like bump from a badly wrong law, and only weakly Tracy-Widom from
+a normal law of the same mean and deviation (measured, Aztec order 160, 400
+samples by shuffling: 0.026 against F2; normal laws with the same mean and
+deviation, rounded and jittered alike, 0.037 median and 0.051 at 95 %).
 """
 from __future__ import annotations
 
@@ -36,17 +44,37 @@ from .tracy_widom import tracy_widom_cdf, tracy_widom_moments
 class FrozenPositions:
     """Positions (plane units along the line, from its start) of the last frozen tile in each sample."""
 
-    positions: np.ndarray
+    positions: np.ndarray          # NaN where the line never left the frozen class (censored)
     frozen_class: str
     scale: float                   # the region's scale n
 
     @property
+    def censored(self) -> np.ndarray:
+        """Samples in which every tile on the line was of the frozen class (no crossing seen)."""
+        return np.isnan(self.positions)
+
+    @property
+    def _seen(self) -> np.ndarray:
+        seen = self.positions[~self.censored]
+        if len(seen) == 0:
+            raise ValueError("the line never leaves the frozen class in any sample: extend or move it")
+        return seen
+
+    @property
     def mean(self) -> float:
-        return float(self.positions.mean())
+        return float(self._seen.mean())
 
     @property
     def deviation(self) -> float:
-        return float(self.positions.std(ddof=1)) if len(self.positions) > 1 else float("nan")
+        seen = self._seen
+        return float(seen.std(ddof=1)) if len(seen) > 1 else float("nan")
+
+    @property
+    def skewness(self) -> float:
+        """Sample skewness (Tracy-Widom GUE's is about +0.224, so -TW gives about -0.224)."""
+        seen = self._seen
+        z = (seen - seen.mean()) / seen.std()
+        return float(np.mean(z ** 3))
 
     @property
     def scaled_deviation(self) -> float:
@@ -54,23 +82,25 @@ class FrozenPositions:
         return self.deviation / self.scale ** (1.0 / 3.0)
 
     def tracy_widom_distance(self) -> float:
-        """Kolmogorov distance between the positions, matched in mean and deviation, and F2.
+        """Kolmogorov distance between the positions (jittered within their lattice step, matched in mean and
+        deviation, orientation -TW; see the module docstring) and F2."""
+        seen = np.sort(self._seen)
+        gaps = np.diff(np.unique(seen))
+        step = float(gaps.min()) if len(gaps) else 0.0
+        jitter = np.random.default_rng(20261204).uniform(-0.5, 0.5, len(seen)) * step
+        values = seen + jitter
+        mean, variance = _tw_moments()
+        z = -(values - values.mean()) / values.std(ddof=1)
+        s = np.sort(z * math.sqrt(variance) + mean)
+        grid, table = _f2_table()
+        cdf = np.interp(s, grid, table)
+        k = np.arange(1, len(s) + 1) / len(s)
+        return float(max(np.max(np.abs(k - cdf)), np.max(np.abs(k - 1.0 / len(s) - cdf))))
 
-        The sign is chosen so that the far tail of F2 points into the liquid
-        region (the frozen region ends later than its typical point less often
-        than earlier, or the reverse; both orientations are tried and the
-        smaller distance kept).
-        """
-        mean, variance = tracy_widom_moments()
-        z = (self.positions - self.mean) / self.deviation
-        best = math.inf
-        for sign in (1.0, -1.0):
-            s = np.sort(sign * z * math.sqrt(variance) + mean)
-            grid, table = _f2_table()
-            cdf = np.interp(s, grid, table)
-            k = np.arange(1, len(s) + 1) / len(s)
-            best = min(best, float(max(np.max(np.abs(k - cdf)), np.max(np.abs(k - 1.0 / len(s) - cdf)))))
-        return best
+
+@lru_cache(maxsize=1)
+def _tw_moments() -> Tuple[float, float]:
+    return tracy_widom_moments()
 
 
 @lru_cache(maxsize=1)
@@ -87,8 +117,11 @@ def frozen_positions(samples: Samples, start: Sequence[float], direction: Sequen
     ``start`` and ``direction`` are in plane coordinates (the frame of
     ``region.tile_centres``); ``width``: half-width of the strip of tiles
     read (plane units). ``frozen_class``: the class that is frozen at the
-    start (default: the class of the first tile on the line in each sample).
-    Raises ValueError when no tile lies on the line.
+    start (default: the class of the first tile on the line in the first
+    sample, then used for all). A sample whose first tile on the line is not of
+    that class has position 0; one whose line never leaves the class is
+    censored (NaN; see :attr:`FrozenPositions.censored`). Raises ValueError
+    when no tile lies on the line.
     """
     samples = _as_list(samples)
     p0 = np.asarray(start, dtype=float)
@@ -118,8 +151,10 @@ def frozen_positions(samples: Samples, start: Sequence[float], direction: Sequen
         target = names.index(chosen) if chosen is not None else int(k[0])
         chosen = names[target]
         other = np.flatnonzero(k != target)
-        last = other[0] - 1 if len(other) else len(k) - 1
-        positions.append(t[last] if last >= 0 else 0.0)
+        if len(other) == 0:
+            positions.append(float("nan"))       # no crossing on this line: censored
+        else:
+            positions.append(t[other[0] - 1] if other[0] > 0 else 0.0)
     return FrozenPositions(np.array(positions), str(chosen), float(region.scale))
 
 
