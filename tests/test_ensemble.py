@@ -177,3 +177,22 @@ def test_huge_ensembles_are_refused_before_allocating(monkeypatch):
     with pytest.raises(fl.RegionTooLargeError, match="ensemble of 100000000 members"):
         fl.ensemble(REGION, 10**8, seed=1)
     assert time.perf_counter() - start < 2.0
+
+
+def test_reducers_sum_exactly_in_any_order(tmp_path):
+    counts = fl.analysis.tile_counts(REGION, bin_size=1.0)
+    plain = sum(counts(s) for s in REGION.samples(8, seed=3))
+    one = fl.ensemble(REGION, 8, seed=3, workers=1, reducers={"tiles": counts})
+    two = fl.ensemble(REGION, 8, seed=3, workers=2, reducers={"tiles": counts})
+    assert np.array_equal(one.reduced["tiles"], plain) and np.array_equal(two.reduced["tiles"], plain)
+    # every member has the region's tile count, spread over the classes
+    assert int(plain.sum()) == 8 * len(REGION.sample(seed=0).tiles)
+    # a resumed store feeds its stored members to the reducers too
+    path = tmp_path / "r.zarr"
+    fl.ensemble(REGION, 8, seed=3, store=path, workers=1)
+    resumed = fl.ensemble(REGION, 8, seed=3, store=path, workers=1, reducers={"tiles": counts})
+    assert np.array_equal(resumed.reduced["tiles"], plain)
+    with pytest.raises(ValueError, match="integer arrays"):
+        fl.ensemble(REGION, 2, seed=3, workers=1, reducers={"mean": lambda s: s.heights.astype(float)})
+    with pytest.raises(TypeError, match="reducers"):
+        fl.ensemble(REGION, 2, seed=3, workers=1, reducers={"x": 3})

@@ -25,7 +25,7 @@ import sys
 import time
 from concurrent.futures import FIRST_COMPLETED, Future, ProcessPoolExecutor, ThreadPoolExecutor, wait
 from dataclasses import dataclass
-from typing import Any, Callable, Dict, List, Optional, Tuple
+from typing import Any, Callable, Dict, List, Mapping, Optional, Tuple, cast
 
 import numpy as np
 
@@ -100,11 +100,41 @@ class _Sums:
         self.members += 1
 
 
+class _Reductions:
+    """Exact sums of integer arrays that user functions compute from each member (order-independent)."""
+
+    def __init__(self, region: Any, reducers: Optional[Mapping[str, Callable[[Sample], Any]]]) -> None:
+        self.region = region
+        self.reducers = dict(reducers or {})
+        for name, f in self.reducers.items():
+            if not isinstance(name, str) or not callable(f):
+                raise TypeError("reducers must map names (str) to functions sample -> integer array")
+        self.sums: Dict[str, np.ndarray] = {}
+
+    def add(self, heights: np.ndarray) -> None:
+        if not self.reducers:
+            return
+        # reducers read heights and tiles; the member's diagnostics are not passed (info is None)
+        sample = Sample(region=self.region, heights=np.asarray(heights), info=cast(SampleInfo, None))
+        for name, f in self.reducers.items():
+            value = np.asarray(f(sample))
+            if not np.issubdtype(value.dtype, np.integer) and value.dtype != bool:
+                raise ValueError(f"reducer {name!r} returned {value.dtype} values; reducers must return integer "
+                                 "arrays (counts), so that sums are exact in any order of arrival")
+            value = value.astype(np.int64)
+            if name not in self.sums:
+                self.sums[name] = np.zeros(value.shape, dtype=np.int64)
+            if value.shape != self.sums[name].shape:
+                raise ValueError(f"reducer {name!r} returned shape {value.shape}, earlier {self.sums[name].shape}")
+            self.sums[name] += value
+
+
 class Ensemble:
     """The members and streamed statistics of one ensemble (see :func:`ensemble`)."""
 
     def __init__(self, region: Any, size: int, root: np.random.SeedSequence, method: str,
-                 group: Any, sums: _Sums, infos: Dict[int, Dict[str, Any]]) -> None:
+                 group: Any, sums: _Sums, infos: Dict[int, Dict[str, Any]],
+                 reductions: Optional[_Reductions] = None) -> None:
         self.region = region
         self.size = size
         self.method = method
@@ -113,6 +143,7 @@ class Ensemble:
         self._group = group
         self._sums = sums
         self._infos = infos
+        self._reductions = reductions
 
     def __len__(self) -> int:
         return self.size
@@ -157,6 +188,11 @@ class Ensemble:
         if k < 2:
             raise ValueError("a variance needs at least two members")
         return (self._sums.squares - self._sums.total.astype(float) ** 2 / k) / (k - 1)
+
+    @property
+    def reduced(self) -> Dict[str, np.ndarray]:
+        """{reducer name: the exact int64 sum of its values over the members} (see ``reducers``)."""
+        return {} if self._reductions is None else {k: v.copy() for k, v in self._reductions.sums.items()}
 
     @property
     def sums(self) -> Tuple[np.ndarray, np.ndarray, int]:
@@ -220,7 +256,8 @@ def _done_members(group: Any, size: int) -> np.ndarray:
 
 def ensemble(region: Any, size: int, seed: SeedLike = None, *, store: Any = None, workers: Optional[int] = None,
              backend: str = "threads", client: Any = None, method: str = "auto",
-             progress: Optional[Callable[[int, int, float], None]] = None) -> Ensemble:
+             progress: Optional[Callable[[int, int, float], None]] = None,
+             reducers: Optional[Mapping[str, Callable[[Sample], Any]]] = None) -> Ensemble:
     """``size`` exact samples of ``region``, member i from child i of the seed (see the module docstring).
 
     Parameters
@@ -233,6 +270,11 @@ def ensemble(region: Any, size: int, seed: SeedLike = None, *, store: Any = None
         Run members on a cluster instead (the region is rebuilt on the workers).
     progress : callable(done, size, seconds), optional
         Called as members finish.
+    reducers : {name: callable(sample) -> integer array}, optional
+        Computed from every member as it arrives (members read back from a
+        store included) and summed exactly (int64), so the totals do not depend
+        on the order of arrival; ``Ensemble.reduced`` holds them. Example:
+        :func:`frostline.analysis.tile_counts` (tile classes counted on a grid).
     """
     size = _check_count(size, "size")
     if backend not in ("threads", "processes"):
@@ -249,6 +291,7 @@ def ensemble(region: Any, size: int, seed: SeedLike = None, *, store: Any = None
     group = _open_store(store, region, size, root, method, shape) if store is not None else None
     done = _done_members(group, size) if group is not None else np.zeros(size, dtype=bool)
     sums = _Sums(np.zeros(shape, dtype=np.int64), np.zeros(shape, dtype=np.int64))
+    reductions = _Reductions(region, reducers)
     if group is not None:
         for i in np.flatnonzero(done):
             try:  # a chunk that fails its checksum is not data: that member is drawn again
@@ -259,6 +302,7 @@ def ensemble(region: Any, size: int, seed: SeedLike = None, *, store: Any = None
                 done[i] = False
                 continue
             sums.add(heights)
+            reductions.add(heights)
     infos: Dict[int, Dict[str, Any]] = {}
     todo = [int(i) for i in np.flatnonzero(~done)]
     started = time.perf_counter()
@@ -270,6 +314,7 @@ def ensemble(region: Any, size: int, seed: SeedLike = None, *, store: Any = None
         if group is not None:
             _write_member(group, i, heights, info)
         sums.add(heights)
+        reductions.add(heights)
         infos[i] = info
         if progress is not None:
             progress(sums.members, size, time.perf_counter() - started)
@@ -280,7 +325,7 @@ def ensemble(region: Any, size: int, seed: SeedLike = None, *, store: Any = None
         _run_local(ProcessPoolExecutor(max_workers=workers), workers, region, root, method, todo, commit, True)
     else:
         _run_local(ThreadPoolExecutor(max_workers=workers), workers, region, root, method, todo, commit, False)
-    return Ensemble(region, size, root, method, group, sums, infos)
+    return Ensemble(region, size, root, method, group, sums, infos, reductions)
 
 
 def _write_member(group: Any, i: int, heights: np.ndarray, info: Dict[str, Any]) -> None:

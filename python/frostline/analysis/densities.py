@@ -2,7 +2,7 @@
 from __future__ import annotations
 
 from dataclasses import dataclass
-from typing import Any, Dict, Sequence, Tuple, Union
+from typing import Any, Callable, Dict, Sequence, Tuple, Union
 
 import numpy as np
 
@@ -112,3 +112,34 @@ def density_grid(samples: Samples, bin_size: float, smoothing: float = 0.0) -> D
     x = lo[0] + (np.arange(nx) + 0.5) * bin_size
     y = lo[1] + (np.arange(ny) + 0.5) * bin_size
     return DensityGrid(x, y, fractions, counts, tuple(names))
+
+
+def tile_counts(region: Any, bin_size: float) -> Callable[[Any], np.ndarray]:
+    """A reducer for :func:`frostline.ensemble`: per sample, the tiles of each class counted on a fixed grid.
+
+    The grid covers the region's tile centres (taken from its least
+    configuration) with square bins of side ``bin_size`` (plane units); the
+    reducer returns int64 counts of shape (classes, nx, ny), so an ensemble sums
+    them exactly. Class fractions: counts / counts.sum(axis=0).
+    """
+    if not bin_size > 0:
+        raise ValueError("bin_size must be positive")
+    least = region.extreme_heights()[0]
+    centres = region.tile_centres(region.tiles_from_heights(least))
+    lo = centres.min(axis=0) - 1e-9
+    hi = centres.max(axis=0) + 1e-9
+    nx = max(1, int(np.ceil((hi[0] - lo[0]) / bin_size)))
+    ny = max(1, int(np.ceil((hi[1] - lo[1]) / bin_size)))
+    classes = len(region.tile_classes)
+    check_memory(8 * classes * nx * ny, f"a {nx}x{ny} grid of tile counts (bin_size {bin_size:g})")
+
+    def count(sample: Any) -> np.ndarray:
+        c = sample.region.tile_centres(sample.tiles)
+        k = np.asarray(sample.region.classify(sample.tiles), dtype=np.int64)
+        i = np.clip(((c[:, 0] - lo[0]) / bin_size).astype(np.int64), 0, nx - 1)
+        j = np.clip(((c[:, 1] - lo[1]) / bin_size).astype(np.int64), 0, ny - 1)
+        out = np.zeros((classes, nx, ny), dtype=np.int64)
+        np.add.at(out, (k, i, j), 1)
+        return out
+
+    return count
