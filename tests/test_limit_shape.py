@@ -262,3 +262,12 @@ def test_lattices_without_a_surface_tension_say_so():
         fl.domino.aztec_diamond(4, vertical_weight=2.0).limit_shape()
     with pytest.raises(ValueError, match="resolution 1"):
         fl.domino.aztec_diamond(4).limit_shape(2)
+
+
+def test_huge_refinements_and_solves_are_refused_before_allocating(monkeypatch):
+    region = fl.lozenge.hexagon_region(10, 10, 10)
+    with pytest.raises(fl.RegionTooLargeError, match="refined 1000 x 1000"):
+        region.limit_shape(1000)
+    monkeypatch.setenv("FROSTLINE_MEMORY_LIMIT", str(2 * 10**7))
+    with pytest.raises(fl.RegionTooLargeError, match="Newton solver"):
+        fl.lozenge.hexagon_region(40, 40, 40).limit_shape()

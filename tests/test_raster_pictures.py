@@ -79,3 +79,10 @@ def test_lozenge_raster_is_bounded_and_independent_of_tile_order():
     k = np.arange(100000)
     image, _ = raster_lozenges(np.stack([-k, 2 * k, np.ones_like(k)], axis=1), pixels=500)
     assert max(image.shape[:2]) == 500
+
+
+@pytest.mark.parametrize("bad", [{"pixels": 0}, {"pixels": 10**6}, {"pixels": 2.5}, {"oversample": 0}])
+def test_raster_sizes_are_checked(bad):
+    tiles = fl.lozenge.hexagon(2, 2, 2).sample(seed=0).tiles
+    with pytest.raises(ValueError, match="pixels|oversample"):
+        raster_lozenges(tiles, **bad)

@@ -68,6 +68,10 @@ def raster_lozenges(tiles: np.ndarray, pixels: int = 2400, *, tones: Sequence[st
     tiles = np.asarray(tiles, dtype=np.int64).reshape(-1, 3)
     if len(tiles) == 0:
         raise ValueError("there are no lozenges to draw")
+    if isinstance(pixels, bool) or not isinstance(pixels, (int, np.integer)) or not 1 <= pixels <= 20000:
+        raise ValueError(f"pixels (the image's longer side) must be an int from 1 to 20000, got {pixels!r}")
+    if isinstance(oversample, bool) or not isinstance(oversample, (int, np.integer)) or not 1 <= oversample <= 8:
+        raise ValueError(f"oversample must be an int from 1 to 8, got {oversample!r}")
     # exact extent: every corner of every lozenge, one offset at a time
     x0 = y0 = np.inf
     x1 = y1 = -np.inf

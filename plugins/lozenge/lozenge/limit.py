@@ -15,9 +15,10 @@ from typing import Any, Dict, Tuple
 
 import numpy as np
 
+from frostline._limits import check_memory
 from frostline.variational import CellProblem, LimitSetup
 
-from .geometry import PARTNER
+from .geometry import BYTES_PER_TRIANGLE, PARTNER
 from .tiles import TILE_CLASSES, lozenge_centres, plane_points
 
 #: corners of U(x, y) and D(x, y) relative to (x, y), in the order of the height rule
@@ -110,6 +111,9 @@ def refined_setup(region: Any, m: int) -> LimitSetup:
     continuum problem on a finer mesh: heights come back divided by m, log Z
     by m^2, tile densities as the mean over the refined cells in each cell.
     """
+    # the refined triangles, then a region of them: check before either is made
+    check_memory((BYTES_PER_TRIANGLE + 64) * len(region.triangles) * m * m + 10**6,
+                 f"the {len(region.triangles)} triangles of this region refined {m} x {m} times")
     coarse = limit_setup(region)
     triangles, parent = refined_triangles(region.triangles, m)
     fine_region = type(region)(triangles, q=region.q ** (1.0 / m), description={"shape": "refined"})
