@@ -75,6 +75,14 @@ def exact_rows(name: str, region, method: str, levels: List[str], threads: List[
     line(name, "-", 1, updates / rate, updates, "~", kernel="numpy chain")
 
 
+def zigzag_strip(m: int, turns: int) -> str:
+    """A strip of width about 2m that zig-zags `turns` times, skewed against the grid of cube columns
+    (its columns fill about a third of their bounding box): a boundary path for fl.lozenge.from_boundary."""
+    bottom = " ".join(f"{m}e {m}ne" for _ in range(turns))
+    top = " ".join(f"{m}w {m}sw" for _ in range(turns))
+    return f"{bottom} {m}nw {m}ne {top} {m}sw {m}se"
+
+
 def main() -> None:
     p = argparse.ArgumentParser(description=__doc__, formatter_class=argparse.RawDescriptionHelpFormatter)
     p.add_argument("--quick", action="store_true")
@@ -91,8 +99,20 @@ def main() -> None:
     n = 40 if small else 100
     exact_rows(f"hexagon {n}^3, box kernel", fl.lozenge.hexagon(n, n, n), "cftp", levels, args.threads, args.seed)
     n = 20 if small else 60
-    exact_rows(f"hexagon {n}^3 as a general region", fl.lozenge.hexagon_region(n, n, n), "cftp", levels[-1:], [1],
-               args.seed)
+    exact_rows(f"hexagon {n}^3, box kernel", fl.lozenge.hexagon(n, n, n), "cftp", levels[-1:], [1], args.seed,
+               baselines=False)
+    start = time.perf_counter()
+    region = fl.lozenge.hexagon_region(n, n, n)
+    region.column_form()
+    line(f"hexagon {n}^3 region: construction", "-", 1, time.perf_counter() - start, None, kernel="columns")
+    exact_rows(f"hexagon {n}^3 as a general region", region, "columns", levels, [1], args.seed, baselines=False)
+    exact_rows(f"hexagon {n}^3 as a general region", region, "points", levels[-1:], [1], args.seed)
+    m = 8 if small else 20
+    strip = fl.lozenge.from_boundary(zigzag_strip(m, 5))
+    exact_rows(f"zig-zag strip ({len(strip.triangles) // 2} lozenges)", strip, "columns", levels[-1:], args.threads,
+               args.seed, baselines=False)
+    exact_rows(f"zig-zag strip ({len(strip.triangles) // 2} lozenges)", strip, "points", levels[-1:], [1], args.seed,
+               baselines=False)
     n = 40 if small else 100
     exact_rows(f"Aztec diamond {n}, CFTP", fl.domino.aztec_diamond(n), "cftp", levels, args.threads, args.seed)
     exact_rows(f"ASM {n} (square ice), CFTP", fl.square_ice.domain_wall(n), "cftp", levels, args.threads, args.seed)

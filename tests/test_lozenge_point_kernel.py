@@ -1,4 +1,5 @@
-"""The lattice-point vector kernel of general lozenge regions (plugins/lozenge/point_rows.inl).
+"""The lattice-point vector kernel of general lozenge regions (plugins/lozenge/point_rows.inl), method
+"points" (the default kernel where a region has no cube-column form).
 
 It must give the generic engine's sample bit for bit (same classes, site ids
 and bits) on every instruction-set level and thread count, and its samples
@@ -36,20 +37,20 @@ def _region(name):
 @pytest.mark.parametrize("name", sorted(REGIONS))
 def test_kernel_matches_the_generic_engine_on_every_level(monkeypatch, name):
     region = _region(name)
-    assert region.exact_methods()["cftp"].kernel == "lattice points"
+    assert region.exact_methods()["points"].kernel == "lattice points"
     for seed in (0, 5, 11):
-        reference = region.sample(seed=seed, method="generic").heights
+        reference = region.sample(seed=seed, method="points-generic").heights
         for level in fl.simd_levels():
             monkeypatch.setenv("FROSTLINE_SIMD", level)
-            np.testing.assert_array_equal(region.sample(seed=seed).heights, reference)
-        np.testing.assert_array_equal(region.sample(seed=seed, threads=2).heights, reference)
+            np.testing.assert_array_equal(region.sample(seed=seed, method="points").heights, reference)
+        np.testing.assert_array_equal(region.sample(seed=seed, method="points", threads=2).heights, reference)
 
 
 def test_large_region_threads_and_generic_agree():
     region = fl.lozenge.hexagon_region(14, 11, 9)
-    reference = region.sample(seed=3, method="generic").heights
+    reference = region.sample(seed=3, method="points-generic").heights
     for threads in (1, 2, 3):
-        np.testing.assert_array_equal(region.sample(seed=3, threads=threads).heights, reference)
+        np.testing.assert_array_equal(region.sample(seed=3, method="points", threads=threads).heights, reference)
 
 
 @pytest.mark.parametrize("name", ["trapezoid 6 4", "trapezoid 7 3", "trapezoid 5 3", "hexagon minus a pair",
@@ -59,14 +60,18 @@ def test_kernel_samples_follow_the_uniform_law(name):
     tilings = fl.exact.enumerate(region)
     law = {tuple(int(v) for v in h.ravel()): 1.0 / len(tilings) for h in tilings}
     n = 3000
-    observed = Counter(tuple(int(v) for v in s.heights.ravel()) for s in region.samples(n, seed=20261203))
+    observed = Counter(tuple(int(v) for v in s.heights.ravel())
+                       for s in region.samples(n, seed=20261203, method="points"))
     assert set(observed) <= set(law)
     assert pooled_chi_square(observed, law, n) > P_FLOOR
 
 
-def test_weighted_regions_keep_the_generic_engine():
+def test_weighted_regions_have_no_lattice_point_kernel():
     region = fl.lozenge.trapezoid(6, 4, q=0.8)
-    assert region.exact_methods()["cftp"].kernel == "generic"
+    assert "points" not in region.exact_methods()
+    assert region.exact_methods()["points-generic"].kernel == "generic"
+    with pytest.raises(ValueError, match="uniform weights only"):
+        region.sample(seed=1, method="points")
 
 
 def test_overlapping_runs_are_refused():

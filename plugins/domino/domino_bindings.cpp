@@ -17,12 +17,7 @@ using domino::corner_run;
 using domino::corner_sweeper;
 
 std::shared_ptr<corner_layout> make_layout(std::int32_t rows, std::int32_t columns, const int_array& runs) {
-    if (runs.ndim() != 2 || runs.shape(1) != 3)
-        throw invalid_model("runs must be an int array of shape (k, 3): (row, first column, last column)");
-    std::vector<corner_run> list;
-    auto r = runs.unchecked<2>();
-    for (py::ssize_t k = 0; k < runs.shape(0); ++k) list.push_back({r(k, 0), r(k, 1), r(k, 2), 0});
-    return std::make_shared<corner_layout>(rows, columns, std::move(list));
+    return std::make_shared<corner_layout>(rows, columns, grid_runs_from(runs));
 }
 
 void check_state(const corner_layout& layout, const int_array& a, const char* what) {

@@ -3,6 +3,7 @@
 #include "frostline/bindings/support.hpp"
 
 #include "box_kernel.hpp"
+#include "column_kernel.hpp"
 #include "point_rows.hpp"
 
 namespace frostline::bindings {
@@ -55,22 +56,32 @@ std::shared_ptr<forward_chain> box_chain(std::int32_t a, std::int32_t b, std::in
 py::tuple point_sample(std::int32_t rows, std::int32_t columns, std::int32_t shift, const int_array& runs,
                        const int_array& least, const int_array& greatest, std::uint64_t word0, std::uint64_t word1,
                        bool check_order, std::int64_t max_start_time, py::object progress, int threads) {
-    if (rows < 3 || columns < 3) throw invalid_model("the grid of lattice points needs at least 3 x 3 entries");
-    if (runs.ndim() != 2 || runs.shape(1) != 3)
-        throw invalid_model("runs must be an int array of shape (k, 3): (row, first column, last column)");
-    const std::int64_t size = static_cast<std::int64_t>(rows) * columns;
-    if (least.size() != size || greatest.size() != size)
-        throw invalid_model("least and greatest need one height per grid entry");
-    std::vector<grid_run> list;
-    auto r = runs.unchecked<2>();
-    for (py::ssize_t k = 0; k < runs.shape(0); ++k) list.push_back({r(k, 0), r(k, 1), r(k, 2), 0});
-    const lozenge::point_layout layout(rows, columns, shift, std::move(list));
+    check_start_grids(rows, columns, least, greatest, "lattice points");
+    const lozenge::point_layout layout(rows, columns, shift, grid_runs_from(runs));
     auto team = make_team(threads);
     lozenge::point_sweeper sweeper(layout, make_key(word0, word1), stream::coupling_from_the_past, team);
     const auto& grid = layout.grid();
     auto joined = [&grid](const std::vector<std::int32_t>& h) { return to_array(grid.join(h)); };
     return cftp_result(sweeper, grid.split(greatest.data()), grid.split(least.data()), progress, max_start_time,
                        check_order, joined);
+}
+
+// CFTP on the cube columns of any lozenge region that has them: least and
+// greatest are row-major rows x columns grids (also each cell's floor and cap),
+// free cells as runs; weight q per cube.
+py::tuple column_sample(std::int32_t rows, std::int32_t columns, const int_array& runs, const int_array& least,
+                        const int_array& greatest, double q, std::uint64_t word0, std::uint64_t word1,
+                        bool check_order, std::int64_t max_start_time, py::object progress, int threads) {
+    check_start_grids(rows, columns, least, greatest, "cube columns");
+    const lozenge::column_layout layout(rows, columns, grid_runs_from(runs), least.data(), greatest.data());
+    auto team = make_team(threads);
+    const auto& grid = layout.grid();
+    auto joined = [&grid](const std::vector<std::int32_t>& h) { return to_array(grid.join(h)); };
+    return with_rule(q, 1, layout.lowest(), layout.highest(), [&](auto rule) {
+        lozenge::column_sweeper<decltype(rule)> sweeper(layout, rule, make_key(word0, word1),
+                                                       stream::coupling_from_the_past, team);
+        return cftp_result(sweeper, layout.cap(), layout.floor(), progress, max_start_time, check_order, joined);
+    });
 }
 
 }  // namespace
@@ -90,6 +101,11 @@ void register_lozenge(py::module_& parent) {
           py::arg("threads") = 1,
           "Exact uniform lozenge heights on the lattice points of any region by CFTP with the vector kernel: "
           "(grid heights, report).");
+    m.def("column_sample", &column_sample, py::arg("rows"), py::arg("columns"), py::arg("runs"), py::arg("least"),
+          py::arg("greatest"), py::arg("q"), py::arg("key0"), py::arg("key1"), py::arg("check_order") = false,
+          py::arg("max_start_time") = std::int64_t(1) << 40, py::arg("progress") = py::none(),
+          py::arg("threads") = 1,
+          "Exact cube-column heights of a lozenge region by CFTP with the column kernel: (grid heights, report).");
     m.def(
         "box_cells",
         [](std::int32_t a, std::int32_t b, std::int32_t c, const int_array& padded) {

@@ -71,6 +71,10 @@ class lozenge:
     def point_sample(rows: int, columns: int, shift: int, runs: IntArray, least: IntArray, greatest: IntArray,
                      key0: int, key1: int, check_order: bool = ..., max_start_time: int = ...,
                      progress: ProgressHook = ..., threads: int = ...) -> Tuple[IntArray, dict]: ...
+    @staticmethod
+    def column_sample(rows: int, columns: int, runs: IntArray, least: IntArray, greatest: IntArray, q: float,
+                      key0: int, key1: int, check_order: bool = ..., max_start_time: int = ...,
+                      progress: ProgressHook = ..., threads: int = ...) -> Tuple[IntArray, dict]: ...
 
 class domino:
     class CornerLayout:

@@ -29,6 +29,7 @@ from frostline.model import HeightModel
 from frostline.region import Region
 from frostline.variational import VariationalRegion
 
+from .columns import column_form, grid_from_model, heights_from_columns, lower_columns
 from .geometry import BYTES_PER_TRIANGLE, EDGE_ENDS, PARTNER, TriangleGrid
 from .parameters import QLike, weight
 from .tile_mixin import LozengeTiles
@@ -100,16 +101,60 @@ class LozengeRegion(LozengeTiles, VariationalRegion, Region):
         self.origin = (int(pts[:, 0].min() + ox), int(pts[:, 1].min() + oy))
         self.vertex_mask = in_region[self._crop].copy()
         self._point_parts: Optional[tuple] = None
+        self._column_parts: Optional[tuple] = None
         self._model.extremes()  # decides tileability now, with the error naming the place
 
     # ----- kernels -----------------------------------------------------------------
     def exact_methods(self) -> Dict[str, ExactMethod]:
-        """``"cftp"``: the lattice-point vector kernel (uniform weights; the generic engine for q != 1);
-        ``"generic"``: the reference engine (the same sample)."""
-        generic = self.generic_method()
+        """``"cftp"`` and ``"columns"``: the cube-column kernel (any q), where the region has a column form
+        (docs/column_form.md), else the lattice-point kernel; ``"generic"``: the reference engine on the same
+        chain (the same sample); ``"points"``: the lattice-point vector kernel (uniform weights only) and
+        ``"points-generic"`` its reference (the same sample as ``"points"``, a different one from ``"cftp"``)."""
+        lattice = self.generic_method()
+        methods: Dict[str, ExactMethod] = {}
+        form = self.column_form()[0]
+        if form is not None:
+            methods["cftp"] = methods["columns"] = ExactMethod("cftp", "cube columns", self._column_sample)
+            methods["generic"] = ExactMethod("cftp", "generic", self._column_generic)
+        if self.q == 1.0:
+            methods["points"] = ExactMethod("cftp", "lattice points", self._point_sample)
+        methods.setdefault("cftp", methods.get("points", lattice))
+        methods.setdefault("generic", lattice)
+        methods["points-generic"] = lattice
+        return {name: methods[name] for name in ("cftp", "columns", "generic", "points", "points-generic")
+                if name in methods}
+
+    def unavailable_methods(self) -> Dict[str, str]:
+        out = {}
+        reason = self.column_form()[1]
+        if reason:
+            out["columns"] = f"this region has no cube-column form: {reason}"
         if self.q != 1.0:
-            return {"cftp": generic, "generic": generic}
-        return {"cftp": ExactMethod("cftp", "lattice points", self._point_sample), "generic": generic}
+            out["points"] = "the lattice-point kernel runs uniform weights only (q = 1); use 'cftp' or 'points-generic'"
+        return out
+
+    def column_form(self):
+        """(the region's :class:`~.columns.ColumnForm`, "") or (None, why it has none); built once."""
+        if self._column_parts is None:
+            self._column_parts = column_form(self)
+        return self._column_parts
+
+    def _column_sample(self, key, options: RunOptions):
+        form = self.column_form()[0]
+        rows, columns = form.free.shape
+        grid, report = _core.lozenge.column_sample(rows, columns, form.runs, form.least.ravel(),
+                                                   form.greatest.ravel(), self.q, key[0], key[1],
+                                                   options.check_order, options.max_start_time, options.progress,
+                                                   options.threads)
+        grid = np.asarray(grid, dtype=np.int32).reshape(rows, columns)
+        return heights_from_columns(self, form, grid), report
+
+    def _column_generic(self, key, options: RunOptions):
+        form = self.column_form()[0]
+        model = lower_columns(form)
+        nodes, report = model.sample(self.q, key, check_order=options.check_order,
+                                     max_start_time=options.max_start_time, progress=options.progress)
+        return heights_from_columns(self, form, grid_from_model(form, nodes)), report
 
     def _point_layout(self):
         """(rows, columns, shift, runs, least grid, greatest grid) of the vector kernel, built once."""

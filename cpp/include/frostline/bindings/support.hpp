@@ -13,6 +13,7 @@
 
 #include "../coupling_from_the_past.hpp"
 #include "../errors.hpp"
+#include "../grid_run.hpp"
 #include "../local_rule.hpp"
 #include "../random.hpp"
 #include "../thread_team.hpp"
@@ -58,6 +59,26 @@ inline run_control make_control(py::object progress, std::int64_t max_start_time
         return true;
     };
     return control;
+}
+
+// Runs of free sites from Python's (k, 3) int array of (row, first column,
+// last column); grid kernels number and check them (grid_runs.hpp).
+inline std::vector<grid_run> grid_runs_from(const int_array& runs) {
+    if (runs.ndim() != 2 || runs.shape(1) != 3)
+        throw invalid_model("runs must be an int array of shape (k, 3): (row, first column, last column)");
+    std::vector<grid_run> list;
+    auto r = runs.unchecked<2>();
+    for (py::ssize_t k = 0; k < runs.shape(0); ++k) list.push_back({r(k, 0), r(k, 1), r(k, 2), 0});
+    return list;
+}
+
+// Checks a rows x columns grid kernel's start grids: at least 3 x 3 (free
+// sites lie strictly inside) and one height per cell in each.
+inline void check_start_grids(std::int64_t rows, std::int64_t columns, const int_array& least,
+                              const int_array& greatest, const std::string& what) {
+    if (rows < 3 || columns < 3) throw invalid_model("the grid of " + what + " needs at least 3 x 3 entries");
+    if (least.size() != rows * columns || greatest.size() != rows * columns)
+        throw invalid_model("least and greatest need one height per grid entry (" + what + ")");
 }
 
 inline py::dict report_dict(const run_report& r) {

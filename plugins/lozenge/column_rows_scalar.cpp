@@ -1,0 +1,9 @@
+// The cube-column row kernel compiled for the scalar level (flags set in CMakeLists.txt).
+#include <cstdint>
+
+#include "frostline/grid_run.hpp"
+
+namespace frostline::lozenge::simd_scalar {
+#include "frostline/vector/draws.inl"
+#include "column_rows.inl"
+}  // namespace frostline::lozenge::simd_scalar
