@@ -225,6 +225,25 @@ def test_segments_do_not_change_the_tiling():
         assert np.array_equal(whole, shuffle(n, horizontal, vertical, *keys(2), segment_orders=length))
 
 
+@pytest.mark.parametrize("name", sorted(WEIGHTS))
+def test_threads_do_not_change_the_tiling(name):
+    # rows of faces are shared among threads from order 64 on; bits depend on the face alone
+    n = 150
+    horizontal, vertical = WEIGHTS[name](n)
+    one = shuffle(n, horizontal, vertical, *keys(6))
+    for threads in (2, 3):
+        assert np.array_equal(one, shuffle(n, horizontal, vertical, *keys(6), threads=threads))
+
+
+def test_the_sample_keeps_the_shuffled_dominoes():
+    # the dominoes the shuffle made are the sample's tiles: the layout tiles_from_heights gives
+    region = fl.domino.aztec_diamond(40)
+    sample = region.sample(seed=3, threads=2)
+    assert "tiles" in sample._cache
+    np.testing.assert_array_equal(sample.tiles, region.tiles_from_heights(sample.heights))
+    np.testing.assert_array_equal(sample.heights, region.sample(seed=3).heights)
+
+
 def test_positions_outside_the_diamond_are_ignored():
     n = 6
     horizontal, vertical = random_weights(n, seed=6)

@@ -57,6 +57,28 @@ std::shared_ptr<forward_chain> corner_chain(std::shared_ptr<corner_layout> layou
 
 }  // namespace
 
+// Corner heights down the columns: h[r][c] = h[r - 1][c] + step[r - 1][c] at
+// every interior corner, rows in order (each interior corner's upper
+// neighbour is a boundary corner or an interior one of the row above).
+using byte_array = py::array_t<std::uint8_t, py::array::c_style | py::array::forcecast>;
+using step_array = py::array_t<std::int8_t, py::array::c_style | py::array::forcecast>;
+
+py::array_t<std::int32_t> scan_columns(const int_array& start, const byte_array& interior, const step_array& step) {
+    if (start.ndim() != 2 || interior.ndim() != 2 || step.ndim() != 2 || interior.shape(0) != start.shape(0) ||
+        interior.shape(1) != start.shape(1) || step.shape(0) + 1 != start.shape(0) || step.shape(1) != start.shape(1))
+        throw invalid_model("scan_columns needs heights (R + 1, C + 1), interior (R + 1, C + 1), steps (R, C + 1)");
+    const py::ssize_t rows = start.shape(0), columns = start.shape(1);
+    py::array_t<std::int32_t> out({rows, columns});
+    std::int32_t* h = out.mutable_data();
+    std::copy(start.data(), start.data() + start.size(), h);
+    const std::uint8_t* inside = interior.data();
+    const std::int8_t* d = step.data();
+    for (py::ssize_t r = 1; r < rows; ++r)
+        for (py::ssize_t c = 0; c < columns; ++c)
+            if (inside[r * columns + c]) h[r * columns + c] = h[(r - 1) * columns + c] + d[(r - 1) * columns + c];
+    return out;
+}
+
 void register_domino(py::module_& parent) {
     auto m = parent.def_submodule("domino", "Kernels of the domino plugin.");
     py::class_<corner_layout, std::shared_ptr<corner_layout>>(m, "CornerLayout")
@@ -68,6 +90,8 @@ void register_domino(py::module_& parent) {
           py::arg("threads") = 1, "Exact domino heights on the corner grid by CFTP with the fast kernel: (heights, report).");
     m.def("corner_chain", &corner_chain, py::arg("layout"), py::arg("start"), py::arg("rule"),
           py::arg("key0"), py::arg("key1"), py::arg("time") = 0);
+    m.def("scan_columns", &scan_columns, py::arg("start"), py::arg("interior"), py::arg("step"),
+          "Corner heights from the boundary down the columns (the domino plugin's height walk).");
     register_domino_shuffling(m);
 }
 

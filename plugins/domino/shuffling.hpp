@@ -49,6 +49,7 @@
 #include <cstdio>
 #include <cstring>
 #include <limits>
+#include <memory>
 #include <stdexcept>
 #include <string>
 #include <vector>
@@ -56,6 +57,7 @@
 #include "frostline/coupling_from_the_past.hpp"
 #include "frostline/errors.hpp"
 #include "frostline/random.hpp"
+#include "frostline/thread_team.hpp"
 
 namespace frostline::domino {
 
@@ -103,41 +105,25 @@ struct table_choice {
 // the faces outside the diamond, so the gather needs no bounds checks.
 class face_grids {
 public:
-    explicit face_grids(std::int64_t n)
+    explicit face_grids(std::int64_t n, std::shared_ptr<thread_team> team = nullptr)
         : width_(n + 2), old_(static_cast<std::size_t>(width_ * width_), 0),
-          new_(static_cast<std::size_t>(width_ * width_), 0), empty_(static_cast<std::size_t>(width_)) {}
+          new_(static_cast<std::size_t>(width_ * width_), 0), team_(std::move(team)),
+          empty_(static_cast<std::size_t>(team_ ? team_->size() : 1), std::vector<std::int32_t>(
+                                                                          static_cast<std::size_t>(width_))) {}
 
-    // Step to order m (the grid `old_` holds order m - 1).
+    // Step to order m (the grid `old_` holds order m - 1). Rows of new faces
+    // read only the old grid and their bits depend on the face alone, so the
+    // team's members take blocks of rows and the tiling does not depend on them.
     template <class Choice>
     void step(std::int64_t m, const Choice& choice, std::uint64_t base) {
-        const std::int64_t w = width_;
-        for (std::int64_t u = 0; u < m; ++u) {
-            const std::uint8_t* here = old_.data() + (u + 1) * w;  // old faces (u, v - 1) at [v]
-            const std::uint8_t* above = old_.data() + u * w;       // old faces (u - 1, v - 1) at [v]
-            std::uint8_t* out = new_.data() + (u + 1) * w + 1;
-            // Each incoming domino keeps its bit: the bottom edge of (u, v-1)
-            // slides to the bottom edge of the new face, and so on. A bit with
-            // its opposite (T with B, L with R) is a colliding block: both go.
-            // Faces where nothing arrived are marked `unfilled`. Branch-free,
-            // so the compiler vectorises it.
-            for (std::int64_t v = 0; v < m; ++v) {
-                const unsigned in = static_cast<unsigned>((here[v] & bottom_edge) | (above[v + 1] & top_edge) |
-                                                          (here[v + 1] & left_edge) | (above[v] & right_edge));
-                out[v] = static_cast<std::uint8_t>((in & ~((in << 2) | (in >> 2)) & 15) | (in == 0 ? unfilled : 0));
-            }
-            // The unfilled faces, listed without branches (about one face in
-            // seven, at unpredictable places), then given their new pairs.
-            std::int64_t count = 0;
-            for (std::int64_t v = 0; v < m; ++v) {
-                empty_[static_cast<std::size_t>(count)] = static_cast<std::int32_t>(v);
-                count += out[v] >> 4;
-            }
-            for (std::int64_t i = 0; i < count; ++i) {
-                const std::int64_t v = empty_[static_cast<std::size_t>(i)];
-                const std::int64_t face = u * m + v;
-                out[v] = choice.horizontal(site_bits(base, static_cast<std::uint64_t>(face)), face) ? horizontal_pair
-                                                                                                    : vertical_pair;
-            }
+        if (!team_ || m < 64) {
+            for (std::int64_t u = 0; u < m; ++u) row(u, m, choice, base, empty_[0]);
+        } else {
+            team_->run([&](int part) {
+                const auto range = team_->block(m, part);
+                for (std::int64_t u = range.first; u < range.second; ++u)
+                    row(u, m, choice, base, empty_[static_cast<std::size_t>(part)]);
+            });
         }
         old_.swap(new_);
     }
@@ -148,10 +134,44 @@ public:
     }
 
 private:
+    // Row u of the new order m, with `empty` as scratch.
+    template <class Choice>
+    void row(std::int64_t u, std::int64_t m, const Choice& choice, std::uint64_t base,
+             std::vector<std::int32_t>& empty) {
+        const std::int64_t w = width_;
+        const std::uint8_t* here = old_.data() + (u + 1) * w;  // old faces (u, v - 1) at [v]
+        const std::uint8_t* above = old_.data() + u * w;       // old faces (u - 1, v - 1) at [v]
+        std::uint8_t* out = new_.data() + (u + 1) * w + 1;
+        // Each incoming domino keeps its bit: the bottom edge of (u, v-1)
+        // slides to the bottom edge of the new face, and so on. A bit with
+        // its opposite (T with B, L with R) is a colliding block: both go.
+        // Faces where nothing arrived are marked `unfilled`. Branch-free,
+        // so the compiler vectorises it.
+        for (std::int64_t v = 0; v < m; ++v) {
+            const unsigned in = static_cast<unsigned>((here[v] & bottom_edge) | (above[v + 1] & top_edge) |
+                                                      (here[v + 1] & left_edge) | (above[v] & right_edge));
+            out[v] = static_cast<std::uint8_t>((in & ~((in << 2) | (in >> 2)) & 15) | (in == 0 ? unfilled : 0));
+        }
+        // The unfilled faces, listed without branches (about one face in
+        // seven, at unpredictable places), then given their new pairs.
+        std::int64_t count = 0;
+        for (std::int64_t v = 0; v < m; ++v) {
+            empty[static_cast<std::size_t>(count)] = static_cast<std::int32_t>(v);
+            count += out[v] >> 4;
+        }
+        for (std::int64_t i = 0; i < count; ++i) {
+            const std::int64_t v = empty[static_cast<std::size_t>(i)];
+            const std::int64_t face = u * m + v;
+            out[v] = choice.horizontal(site_bits(base, static_cast<std::uint64_t>(face)), face) ? horizontal_pair
+                                                                                                : vertical_pair;
+        }
+    }
+
     static constexpr std::uint8_t unfilled = 16;
     std::int64_t width_;
     std::vector<std::uint8_t> old_, new_;
-    std::vector<std::int32_t> empty_;  // unfilled faces of one row
+    std::shared_ptr<thread_team> team_;
+    std::vector<std::vector<std::int32_t>> empty_;  // per team member: the unfilled faces of one row
 };
 
 // The four edge-weight arrays of the faces, n x n each, renewed in place. At
@@ -399,7 +419,8 @@ inline void check_aztec_memory(std::int64_t n, bool weighted, std::int64_t segme
 inline std::vector<std::int32_t> aztec_shuffle(std::int64_t n, const double* horizontal, const double* vertical,
                                                random_key key, const run_control* control = nullptr,
                                                std::int64_t segment_length = 0,
-                                               double limit_bytes = 2.0 * 1024.0 * 1024.0 * 1024.0) {
+                                               double limit_bytes = 2.0 * 1024.0 * 1024.0 * 1024.0,
+                                               std::shared_ptr<thread_team> team = nullptr) {
     using namespace shuffling_detail;
     if (n < 0) throw invalid_model("the order n of the Aztec diamond must be >= 0, got " + std::to_string(n));
     if (segment_length < 0)
@@ -413,7 +434,7 @@ inline std::vector<std::int32_t> aztec_shuffle(std::int64_t n, const double* hor
     polling.poll_interval = std::int64_t(1) << 22;
     const frostline::detail::stopwatch clock;
     frostline::detail::poller poll(polling, clock);
-    face_grids faces(n);
+    face_grids faces(n, std::move(team));
     auto grow = [&](std::int64_t k, const auto& choice) {
         faces.step(k, choice, sweep_base(key, shuffling_stream, k));
         poll.add(k * k, k);

@@ -47,7 +47,7 @@ std::optional<weight_array> weights_or_none(const py::object& value, const char*
 
 py::array_t<std::int32_t> aztec_shuffle(std::int64_t n, const py::object& horizontal, const py::object& vertical,
                                         std::uint64_t key0, std::uint64_t key1, const py::object& progress,
-                                        std::int64_t segment_orders, double memory_limit) {
+                                        std::int64_t segment_orders, double memory_limit, int threads) {
     if (n < 0) throw invalid_model("the order n of the Aztec diamond must be >= 0, got " + std::to_string(n));
     // Refuse an order too large for memory before converting (copying) the weights.
     const bool weighted = !horizontal.is_none() || !vertical.is_none();
@@ -61,13 +61,14 @@ py::array_t<std::int32_t> aztec_shuffle(std::int64_t n, const py::object& horizo
     const double* h_data = h ? h->data() : nullptr;
     const double* v_data = v ? v->data() : nullptr;
     const run_control control = make_control(progress, std::int64_t(1) << 40, false);
+    auto team = make_team(threads);
     std::vector<std::int32_t> dominoes;
     {
         // Orders in the hundreds take seconds: free the GIL so other Python
         // threads run; the hook re-takes it to check for Ctrl-C.
         py::gil_scoped_release free;
         dominoes = domino::aztec_shuffle(n, h_data, v_data, make_key(key0, key1), &control, segment_orders,
-                                         memory_limit);
+                                         memory_limit, team);
     }
     py::array_t<std::int32_t> out({static_cast<py::ssize_t>(n * (n + 1)), py::ssize_t(2), py::ssize_t(2)});
     std::copy(dominoes.begin(), dominoes.end(), out.mutable_data());
@@ -80,6 +81,7 @@ void register_domino_shuffling(py::module_& m) {
     m.def("aztec_shuffle", &aztec_shuffle, py::arg("n"), py::arg("horizontal") = py::none(),
           py::arg("vertical") = py::none(), py::arg("key0"), py::arg("key1"), py::arg("progress") = py::none(),
           py::arg("segment_orders") = 0, py::arg("memory_limit") = 2.0 * 1024.0 * 1024.0 * 1024.0,
+          py::arg("threads") = 1,
           R"doc(Exact domino tiling of the Aztec diamond of order n by domino shuffling.
 
 horizontal: None or float array (2n, 2n - 1); [r, c] weighs the domino on
@@ -92,6 +94,7 @@ milliseconds. segment_orders: testing aid, how many orders' weight tables
 are kept at once (0: automatic); it never changes the tiling.
 memory_limit: bytes the run may use (frostline passes FROSTLINE_MEMORY_LIMIT's
 value); a larger estimate is refused before anything is allocated.
+threads: threads sharing each order's rows of faces (the tiling is the same for any count).
 Returns int32 (n(n+1), 2, 2): each domino as [(r1, c1), (r2, c2)], first
 cell top or left, rows sorted.)doc");
 }

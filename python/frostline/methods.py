@@ -37,11 +37,16 @@ class RunOptions:
 
 @dataclass(frozen=True)
 class ExactMethod:
-    """One exact sampler of a region."""
+    """One exact sampler of a region.
+
+    ``run(key, options)`` returns (heights, report), or (heights, report,
+    views) where ``views`` pre-fills the sample's cache with views the method
+    made anyway (``{"tiles": ...}``, exactly what ``tiles_from_heights`` would give).
+    """
 
     family: str
     kernel: str
-    run: Callable[[EngineKey, RunOptions], Tuple[np.ndarray, Dict[str, Any]]]
+    run: Callable[..., Tuple[Any, ...]]
 
 
 @dataclass(frozen=True)

@@ -273,8 +273,9 @@ class Region(abc.ABC):
         threads : int
             Threads that share each sweep (each takes a block of rows of a
             colour class). The sample is the same for every thread count. The
-            vector kernels of uniform boxes, domino regions and square ice use
-            them; other kernels run on the calling thread. Worth it for large
+            vector kernels of uniform boxes, general lozenge regions, domino
+            regions and square ice use them, and so does domino shuffling (rows
+            of faces); other kernels run on the calling thread. Worth it for large
             regions only (a colour class must take well over a microsecond).
         """
         sequence = normalise_seed(seed)
@@ -290,10 +291,10 @@ class Region(abc.ABC):
         if chosen.family == "cftp":
             self._check_exactness_once()
         options = RunOptions(bool(check_order), max_start_time, progress, threads)
-        heights, report = chosen.run(engine_key(sequence), options)
+        heights, report, *views = chosen.run(engine_key(sequence), options)
         seconds, figures = engine_report(report)
         info = SampleInfo(method=chosen.family, kernel=chosen.kernel, seconds=seconds, seed=record, report=figures)
-        return Sample(region=self, heights=heights, info=info)
+        return Sample(region=self, heights=heights, info=info, _cache=dict(views[0]) if views else {})
 
     def samples(self, k: int, seed: SeedLike = None, *, threads: Optional[int] = None, method: str = "auto",
                 max_start_time: int = 2**40) -> List[Sample]:

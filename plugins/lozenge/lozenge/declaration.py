@@ -57,7 +57,8 @@ LATTICE = LatticeSpec(
                Argument("file", "read the boundary path from this text file", type=Path, flag="--file",
                         exclusive="source"), _Q),
               "Lozenge tilings of the region inside a boundary path, e.g. \"4e 3ne 5nw 4w 3sw 5se\" "
-              "(steps e, ne, nw, w, sw, se; counts; groups).", required=("source",)),
+              "(steps e, ne, nw, w, sw, se; counts; groups).", required=("source",),
+              methods=("columns", "points", "points-generic")),
         Shape("trapezoid", "a trapezoid with notches in its top row",
               lambda bottom, height, notches=None, q=1.0: trapezoid(bottom, height, notches, q=q),
               (Argument("bottom", "length of the bottom side"),
@@ -65,7 +66,7 @@ LATTICE = LatticeSpec(
                Argument("notches", "positions 0 .. BOTTOM+HEIGHT-1 of the removed top triangles (default: spread "
                         "evenly)", nargs="+", flag="--notches"), _Q),
               "A trapezoid widening upwards (BOTTOM e, HEIGHT ne, BOTTOM+HEIGHT w, HEIGHT se) with HEIGHT down "
-              "triangles removed from its top row."),
+              "triangles removed from its top row.", methods=("columns", "points", "points-generic")),
     ),
     closed_forms={"macmahon": macmahon, "q_macmahon": q_partition_function, "volume_polynomial": volume_polynomial},
     tile_classes=TILE_CLASSES,
