@@ -29,6 +29,7 @@ from frostline.model import HeightModel
 from frostline.region import Region, Sample
 from frostline.variational import VariationalRegion
 
+from .edge_probabilities import aztec_placement_probabilities
 from .geometry import SquareGeometry
 from .weights import Weights, check_weights, flip_thresholds
 
@@ -283,6 +284,29 @@ class DominoRegion(VariationalRegion, Region):
         heights = self._scan_columns(self.geometry.expected_step_down(crossed), float)
         return np.where(self.corner_mask, heights, np.nan)
 
+    def placement_probabilities(self, tolerance: float = 1e-6) -> Tuple[np.ndarray, np.ndarray]:
+        """Every domino position and its probability (``fl.exact.placement_probabilities`` calls this).
+
+        Aztec diamonds of any order: the urban-renewal recursion in probabilities
+        (:mod:`.edge_probabilities`; float64 loses about n * 1e-16); other regions:
+        the inverse Kasteleyn matrix. Either way the probabilities around every
+        cell must sum to 1 within ``tolerance``, or ValueError is raised.
+        """
+        from frostline.exact.local_statistics import check_vertex_sums, kasteleyn_placement_probabilities
+
+        if not self.is_aztec_diamond:
+            return kasteleyn_placement_probabilities(self, tolerance)
+        n = int(self._description["order"])
+        horizontal, vertical = self.weights if self.weights is not None else (None, None)
+        tiles, p = aztec_placement_probabilities(n, horizontal, vertical,
+                                                 constant_ratio=_constant_ratio(self.mask, horizontal, vertical))
+        R, C = self.geometry.shape
+        cells = tiles.reshape(-1, 2)
+        rank = np.cumsum(self.mask.ravel()) - 1  # cells of the region, numbered
+        check_vertex_sums(rank[cells[:, 0] * C + cells[:, 1]], np.repeat(p, 2), int(self.mask.sum()), tolerance,
+                          f"the edge probabilities of the order-{n} Aztec diamond")
+        return tiles, p
+
     def height_field(self, heights: np.ndarray) -> np.ndarray:
         """Thurston's height / 4 on the corners (NaN outside the region): it changes by 1 around a vertex."""
         h = np.asarray(self.check_heights(heights), dtype=float) / 4.0
@@ -508,3 +532,16 @@ class DominoRegion(VariationalRegion, Region):
         shape = {k: v for k, v in self._description.items()}
         return f"DominoRegion({shape}, dominoes={self.n_dominoes}, weighted={self.weights is not None})"
 
+
+
+def _constant_ratio(mask: np.ndarray, horizontal: Optional[np.ndarray], vertical: Optional[np.ndarray]) -> Optional[float]:
+    """w_T w_B / D when every horizontal domino inside the mask has one weight and every vertical one another
+    (then urban renewal keeps that ratio at every face of every order); None otherwise."""
+    if horizontal is None and vertical is None:
+        return 0.5
+    h_in = horizontal[mask[:, :-1] & mask[:, 1:]] if horizontal is not None else np.ones(1)
+    v_in = vertical[mask[:-1, :] & mask[1:, :]] if vertical is not None else np.ones(1)
+    if h_in.size == 0 or v_in.size == 0 or np.ptp(h_in) != 0 or np.ptp(v_in) != 0:
+        return None
+    h, v = float(h_in[0]), float(v_in[0])
+    return h * h / (h * h + v * v)
