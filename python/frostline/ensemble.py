@@ -306,47 +306,92 @@ def ensemble(region: Any, size: int, seed: SeedLike = None, *, store: Any = None
     infos: Dict[int, Dict[str, Any]] = {}
     todo = [int(i) for i in np.flatnonzero(~done)]
     started = time.perf_counter()
+    writer = _MemberWriter(group) if group is not None else None
 
     def commit(i: int, heights: np.ndarray, info: Dict[str, Any]) -> None:
         heights = np.asarray(heights)
         if heights.shape != shape:
             raise RuntimeError(f"member {i} came back with heights of shape {heights.shape}, not {shape}")
-        if group is not None:
-            _write_member(group, i, heights, info)
+        if writer is not None:
+            writer.add(i, heights, info)
         sums.add(heights)
         reductions.add(heights)
         infos[i] = info
         if progress is not None:
             progress(sums.members, size, time.perf_counter() - started)
 
-    if client is not None:
-        _run_on_cluster(client, region, root, method, todo, commit)
-    elif backend == "processes" and workers > 1:
-        _run_local(ProcessPoolExecutor(max_workers=workers), workers, region, root, method, todo, commit, True)
-    else:
-        _run_local(ThreadPoolExecutor(max_workers=workers), workers, region, root, method, todo, commit, False)
+    try:
+        if client is not None:
+            _run_on_cluster(client, region, root, method, todo, commit)
+        elif backend == "processes" and workers > 1:
+            _run_local(ProcessPoolExecutor(max_workers=workers), workers, region, root, method, todo, commit, True)
+        else:
+            _run_local(ThreadPoolExecutor(max_workers=workers), workers, region, root, method, todo, commit, False)
+    finally:
+        if writer is not None:  # members finished before a Ctrl-C or an error are kept
+            writer.flush()
     return Ensemble(region, size, root, method, group, sums, infos, reductions)
 
 
-def _write_member(group: Any, i: int, heights: np.ndarray, info: Dict[str, Any]) -> None:
-    """Member i whole (heights, then one row of seconds and report figures), then its commit mark.
+class _MemberWriter:
+    """Writes members into a store, in batches: each member whole (heights, then one row of seconds
+    and report figures), then the commit marks of the batch.
 
-    Three chunk writes per member: a kill before the mark leaves the member to
-    be recomputed. The report figures are the method's integer counters, the
-    same for every member of an ensemble; their names are recorded once.
+    A kill before a member's mark leaves it to be recomputed; a batch is at
+    most BATCH members or BATCH_SECONDS old, so a kill costs at most that much
+    work. One zarr call writes a batch's chunks concurrently (one member per
+    chunk still): per-member writes cost milliseconds each, serialised, which
+    would cap the speed-up of fast members. The report figures are the
+    method's integer counters, the same for every member of an ensemble;
+    their names are recorded once. The arrays are opened once.
     """
-    report = {k: v for k, v in info.get("report", {}).items() if isinstance(v, (int, np.integer))}
-    if "report_fields" not in group.attrs:
-        group.attrs.update({"report_fields": sorted(report), "method_family": info.get("method", ""),
-                            "kernel": info.get("kernel", "")})
-    fields = list(group.attrs["report_fields"])
-    if "info" not in group:
-        group.create_array("info", shape=(group["done"].shape[0], 1 + len(fields)), chunks=(1, 1 + len(fields)),
-                           dtype="float64", fill_value=0.0, compressors=_codecs())
-    group["heights"][i] = heights.astype(np.int32)
-    # float64 holds the integer counters exactly below 2^53 (about 9e15 site updates)
-    group["info"][i] = np.array([float(info.get("seconds", 0.0))] + [float(report.get(n, 0)) for n in fields])
-    group["done"][i] = 1
+
+    BATCH = 32
+    BATCH_SECONDS = 1.0
+
+    def __init__(self, group: Any) -> None:
+        self.group = group
+        self.heights, self.done = group["heights"], group["done"]
+        self.info: Any = group["info"] if "info" in group else None
+        self.fields: Optional[List[str]] = (list(group.attrs["report_fields"]) if "report_fields" in group.attrs
+                                            else None)
+        self.buffer: List[Tuple[int, np.ndarray, Dict[str, Any]]] = []
+        self.since = time.perf_counter()
+
+    def add(self, i: int, heights: np.ndarray, info: Dict[str, Any]) -> None:
+        self.buffer.append((i, heights, info))
+        if len(self.buffer) >= self.BATCH or time.perf_counter() - self.since > self.BATCH_SECONDS:
+            self.flush()
+
+    def flush(self) -> None:
+        self.since = time.perf_counter()
+        if not self.buffer:
+            return
+        batch, self.buffer = sorted(self.buffer, key=lambda item: item[0]), []
+        reports = [{k: v for k, v in info.get("report", {}).items() if isinstance(v, (int, np.integer))}
+                   for _, _, info in batch]
+        if self.fields is None:
+            first = batch[0][2]
+            self.group.attrs.update({"report_fields": sorted(reports[0]), "method_family": first.get("method", ""),
+                                     "kernel": first.get("kernel", "")})
+            self.fields = sorted(reports[0])
+        if self.info is None:
+            self.info = self.group.create_array("info", shape=(self.done.shape[0], 1 + len(self.fields)),
+                                                chunks=(1, 1 + len(self.fields)), dtype="float64", fill_value=0.0,
+                                                compressors=_codecs())
+        index = np.array([i for i, _, _ in batch])
+        heights = np.stack([h.astype(np.int32) for _, h, _ in batch])
+        # float64 holds the integer counters exactly below 2^53 (about 9e15 site updates)
+        rows = np.array([[float(info.get("seconds", 0.0))] + [float(r.get(n, 0)) for n in self.fields]
+                         for (_, _, info), r in zip(batch, reports)])
+        # runs of consecutive members, each one slice: whole chunks, written without reading the old ones
+        # (a corrupted chunk is overwritten, not read)
+        starts = np.flatnonzero(np.diff(index, prepend=index[0] - 2) != 1)
+        for a, b in zip(starts, list(starts[1:]) + [len(index)]):
+            self.heights[index[a]: index[b - 1] + 1] = heights[a:b]
+            self.info[index[a]: index[b - 1] + 1] = rows[a:b]
+        for a, b in zip(starts, list(starts[1:]) + [len(index)]):
+            self.done[index[a]: index[b - 1] + 1] = 1
 
 
 def _run_local(pool: Any, workers: int, region: Any, root: np.random.SeedSequence, method: str, todo: List[int],
