@@ -11,8 +11,9 @@ A store (a path or a zarr store; zarr and, for clusters, dask.distributed
 are the optional extra ``frostline[cluster]``) is a zarr group: ``heights``
 of shape (size, ...), one member per chunk, ``info`` with one row per member
 (seconds, then the method's integer report figures, named in the attribute
-``report_fields``), and ``done``, written last for each member as its
-commit mark; chunks carry a crc32c checksum. Attributes hold the region's
+``report_fields``), and ``done``, written after the member's other chunks as
+its commit mark (members are written in small batches: a kill loses at most
+one batch of work, and only uncommitted members); chunks carry a crc32c checksum. Attributes hold the region's
 description, the seed record and frostline's version, written once by the
 coordinating process. Re-running the same call on an existing store computes
 only the members not marked done, and refuses a store made for another
