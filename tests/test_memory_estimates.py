@@ -22,7 +22,11 @@ CASES = {
     "domino engine": ("fl.domino.aztec_diamond(600)._engine()", "450 * 1201 ** 2"),
     "square ice": ("fl.square_ice.domain_wall(900)", "640 * 901 ** 2"),
     "lozenge region": ("fl.lozenge.hexagon_region(300, 300, 300)", "560 * 6 * 300 ** 2 + 10 ** 6"),
+    # the column form's extension check on a zig-zag strip: most of its bounding grid lies outside it
+    "column form": ("R = fl.lozenge.from_boundary(ZIGZAG); before = high_water(); R.column_form()",
+                    "600 * R.grid.up.size + 10 ** 6"),
 }
+ZIGZAG = "'" + "60e " + "60ne 60nw " * 5 + "60w " + "60sw 60se " * 5 + "'"
 
 
 @pytest.mark.parametrize("name", sorted(CASES))
@@ -38,6 +42,7 @@ def test_estimate_bounds_the_measured_peak(name):
         fl.domino.aztec_diamond(2)._engine(); fl.square_ice.domain_wall(2)  # imports and first-use caches
         fl.lozenge.hexagon_region(2, 2, 2)
         before = high_water()
+        ZIGZAG = {ZIGZAG}
         value = {build}
         print(json.dumps({{"peak": high_water() - before, "estimate": {estimate}}}))
     """)

@@ -38,6 +38,8 @@ from frostline.model import HeightModel
 
 #: grid memory of the column form per cell (four int32 grids, masks and the kernel's split copies)
 BYTES_PER_COLUMN = 64
+#: peak memory of the extension check per point of the region's padded grid
+EXTENSION_BYTES_PER_POINT = 600
 
 
 @dataclass
@@ -232,7 +234,9 @@ def _boundary_extends(region, least: np.ndarray) -> bool:
     """
     g = region.grid
     nx, ny = g.up.shape
-    check_memory(300 * nx * ny + 10**6, f"the {nx}x{ny} extension check of the column form")
+    # the model's arrays, its arc lists and Dijkstra's heap of up to one entry per arc: measured 220-520
+    # bytes per grid point (a hexagon; a zig-zag strip, mostly outside its bounding box; tests/test_memory_estimates.py)
+    check_memory(EXTENSION_BYTES_PER_POINT * nx * ny + 10**6, f"the {nx}x{ny} extension check of the column form")
     pinned = np.zeros(nx * ny, bool)
     pinned[region._boundary_points] = True
     node = np.empty(nx * ny, np.int64)
