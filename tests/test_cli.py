@@ -198,3 +198,25 @@ def test_method_choices_follow_the_shape(capsys):
 def test_hexagon_asks_for_three_sides(capsys):
     assert main(["sample", "hexagon", "3", "3"]) == 2
     assert "needs three side lengths A B C" in capsys.readouterr().err
+
+
+def test_ensemble_reducers_and_statistics_file(tmp_path, capsys, monkeypatch):
+    import numpy as np
+
+    (tmp_path / "study_reducers.py").write_text(
+        "import numpy as np\n"
+        "def type_counts(sample):\n"
+        "    return np.bincount(sample.tiles[:, 2], minlength=3).astype(np.int64)\n")
+    monkeypatch.syspath_prepend(str(tmp_path))
+    statistics = tmp_path / "stats.npz"
+    argv = ["ensemble", "hexagon", "4", "3", "3", "--size", "20", "--seed", "1", "--workers", "2",
+            "--tile-counts", "1.0", "--reducer", "types=study_reducers:type_counts", "--statistics", str(statistics)]
+    assert main(argv) == 0
+    data = np.load(statistics)
+    # every plane partition of the 4 x 3 x 3 box has ab = 12, bc = 9, ca = 12 lozenges of the three types
+    np.testing.assert_array_equal(data["reduced_types"], [20 * 12, 20 * 9, 20 * 12])
+    assert int(data["reduced_tile_counts"].sum()) == 20 * 33 and data["mean_heights"].shape == (4, 3)
+    assert main(argv) == 2 and "--force" in capsys.readouterr().err      # the file is kept
+    assert main(argv[:-4] + ["--reducer", "types=study_reducers:missing"]) == 2
+    assert "cannot find missing" in capsys.readouterr().err
+    assert main(argv[:-4] + ["--reducer", "no-separator"]) == 2

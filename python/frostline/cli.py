@@ -43,7 +43,7 @@ parentheses; the path must close without touching itself."""
 
 #: options every shape gets from the command line itself; a lattice may not declare them
 RESERVED_OPTIONS = ("--seed", "--method", "--picture", "--output", "--force", "--no-limits", "--size", "--store",
-                    "--workers", "--scheduler", "-h", "--help")
+                    "--workers", "--scheduler", "--tile-counts", "--reducer", "--statistics", "-h", "--help")
 
 
 def _shape_table() -> Dict[str, Tuple[str, Any]]:
@@ -78,6 +78,13 @@ def _add_ensemble_options(p: argparse.ArgumentParser) -> None:
                    help="zarr store to write members to; running the same command again resumes it")
     p.add_argument("--workers", type=int, default=None, help="local worker threads (default: all cores)")
     p.add_argument("--scheduler", default=None, help="address of a Dask scheduler (tcp://host:port) to run on")
+    p.add_argument("--tile-counts", type=float, default=None, metavar="BIN",
+                   help="also count the tiles of each class on a grid of square bins of this side (plane units)")
+    p.add_argument("--reducer", action="append", default=[], metavar="NAME=MODULE:FUNCTION",
+                   help="also sum FUNCTION(sample) (an integer array of one shape) over the members; repeatable")
+    p.add_argument("--statistics", type=Path, default=None, metavar="FILE.npz",
+                   help="write the mean and variance of the heights and every reduced sum to this .npz file")
+    p.add_argument("--force", action="store_true", help="replace an existing --statistics file (kept otherwise)")
 
 
 def _add_shapes(parent: argparse.ArgumentParser, sampling: bool, picture_required: bool = False,
@@ -277,10 +284,13 @@ def _ensemble(args) -> int:
         except ImportError as exc:
             raise ValueError("--scheduler needs dask.distributed: pip install 'frostline[cluster]'") from exc
         client = Client(args.scheduler)
+    reducers = _reducers(region, args.tile_counts, args.reducer)
+    if args.statistics is not None and args.statistics.exists() and not args.force:
+        raise ValueError(f"{args.statistics} exists; pass --force to replace it")
     started = time.perf_counter()
     try:
         e = ensemble(region, args.size, seed=args.seed, store=args.store, workers=args.workers, client=client,
-                     progress=print_progress())
+                     progress=print_progress(), reducers=reducers or None)
     finally:
         if client is not None:
             client.close()
@@ -291,7 +301,45 @@ def _ensemble(args) -> int:
     print(f"  mean height     {float(np.nanmean(mean)):.6g} (over the points)")
     if e.size > 1:
         print(f"  mean variance   {float(np.nanmean(e.var_heights)):.6g} (over the points)")
+    for name, total in e.reduced.items():
+        print(f"  {name:<15} summed over the members: shape {total.shape}, total {int(total.sum())}")
+    if args.statistics is not None:
+        arrays = {"mean_heights": mean, "size": np.array(e.size), "seed": np.array(args.seed)}
+        if e.size > 1:
+            arrays["var_heights"] = e.var_heights
+        arrays.update({f"reduced_{name}": total for name, total in e.reduced.items()})
+        with open(args.statistics, "wb") as handle:
+            np.savez(handle, **arrays)
+        print(f"  statistics      {args.statistics} ({', '.join(sorted(arrays))})")
     return 0
+
+
+def _reducers(region, tile_bin, specs) -> dict:
+    """The reducers the options ask for: tile counts on a grid, and NAME=MODULE:FUNCTION imports."""
+    import importlib
+
+    out = {}
+    if tile_bin is not None:
+        from .analysis import tile_counts
+
+        out["tile_counts"] = tile_counts(region, tile_bin)
+    for spec in specs:
+        name, _, target = spec.partition("=")
+        module, _, function = target.partition(":")
+        if not name or not module or not function:
+            raise ValueError(f"--reducer needs NAME=MODULE:FUNCTION (for example counts=mystudy:vertical_count), "
+                             f"got {spec!r}")
+        if name in out:
+            raise ValueError(f"two reducers are called {name!r}; give each its own name")
+        try:
+            found = getattr(importlib.import_module(module), function)
+        except (ImportError, AttributeError) as exc:
+            raise ValueError(f"--reducer {spec}: cannot find {function} in module {module} ({exc}); the module "
+                             "must be importable (on PYTHONPATH or installed)") from None
+        if not callable(found):
+            raise ValueError(f"--reducer {spec}: {module}.{function} is not a function")
+        out[name] = found
+    return out
 
 
 def _is_weighted(region) -> bool:
