@@ -304,7 +304,7 @@ def _ensemble(args) -> int:
     for name, total in e.reduced.items():
         print(f"  {name:<15} summed over the members: shape {total.shape}, total {int(total.sum())}")
     if args.statistics is not None:
-        arrays = {"mean_heights": mean, "size": np.array(e.size), "seed": np.array(args.seed)}
+        arrays: Dict[str, Any] = {"mean_heights": mean, "size": np.array(e.size), "seed": np.array(args.seed)}
         if e.size > 1:
             arrays["var_heights"] = e.var_heights
         arrays.update({f"reduced_{name}": total for name, total in e.reduced.items()})
