@@ -37,6 +37,13 @@ def test_far_apart_triangles_are_refused_by_their_bounding_box():
     _refused_fast(lambda: fl.lozenge.from_triangles(far), match="bounding box")
 
 
+def test_a_long_thin_boundary_path_is_refused_by_its_bounding_box():
+    # 800 000 unit steps enclosing a thin staircase: few triangles, a 200 000 x 200 000 bounding box;
+    # refused from the path's points, before the row scan (which took about a minute on this path)
+    with pytest.raises(RegionTooLargeError, match="bounding box"):
+        fl.lozenge.from_boundary("200000(1e 1ne) 1nw 200000(1w 1sw) 1se")
+
+
 def test_huge_ensembles_are_refused_before_spawning():
     region = fl.lozenge.hexagon(4, 4, 4)
     _refused_fast(lambda: region.samples(10**8, seed=1))

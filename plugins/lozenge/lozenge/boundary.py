@@ -21,7 +21,7 @@ import numpy as np
 
 from frostline._limits import check_memory
 
-from .geometry import BYTES_PER_TRIANGLE
+from .geometry import BYTES_PER_TRIANGLE, GRID_BYTES_PER_POINT, MARGIN
 
 DIRECTIONS = {"e": (1, 0), "ne": (0, 1), "nw": (-1, 1), "w": (-1, 0), "sw": (0, -1), "se": (1, -1)}
 _TOKEN = re.compile(r"\s*(?:(\d+)|([A-Za-z]+)|(\()|(\))|(,))")
@@ -159,6 +159,10 @@ def enclosed_triangles(steps: Sequence[Tuple[int, int]], start: Tuple[int, int] 
     x, y = pts[:, 0].astype(float), pts[:, 1].astype(float)
     triangles = abs(float(np.dot(x[:-1], y[1:]) - np.dot(x[1:], y[:-1])))
     check_memory(int(BYTES_PER_TRIANGLE * triangles), f"a region of about {triangles:.3g} triangles")
+    # the region's arrays live on the bounding box of its points (geometry.TriangleGrid): check that too, first
+    span = pts.max(axis=0) - pts.min(axis=0) + 2 * MARGIN + 2
+    check_memory(int(GRID_BYTES_PER_POINT * float(span[0]) * float(span[1])),
+                 f"the {int(span[0])}x{int(span[1])} grid around this boundary path (its bounding box)")
     a, b = pts[:-1], pts[1:]
     moving = a[:, 1] != b[:, 1]
     a, b = a[moving], b[moving]
@@ -172,16 +176,17 @@ def enclosed_triangles(steps: Sequence[Tuple[int, int]], start: Tuple[int, int] 
     for s, crossing, offset in ((0, first, 1), (1, second, 2)):
         order = np.lexsort((crossing, row))
         rows, cuts = row[order], crossing[order]
-        for y in np.unique(rows):
-            c = cuts[rows == y]
-            if len(c) % 2:
-                raise AssertionError("odd number of crossings on a row of a closed path")
-            for lo, hi in zip(c[0::2], c[1::2]):
-                # centroids 3x + offset strictly between lo and hi
-                x0 = -((offset - lo) // 3)  # ceil((lo - offset) / 3)
-                x1 = (hi - offset) // 3
-                xs = np.arange(x0, x1 + 1)
-                out.append(np.stack([xs, np.full_like(xs, y), np.full_like(xs, s)], axis=1))
-    if not out:
+        # crossings pair up within each row, sorted: (c0, c1), (c2, c3), ... (all rows at once, no row loop)
+        if len(rows) % 2 or np.any(rows[0::2] != rows[1::2]):
+            raise AssertionError("odd number of crossings on a row of a closed path")
+        lo, hi, y = cuts[0::2], cuts[1::2], rows[0::2]
+        # centroids 3x + offset strictly between lo and hi
+        x0 = -((offset - lo) // 3)  # ceil((lo - offset) / 3)
+        x1 = (hi - offset) // 3
+        counts = np.maximum(x1 - x0 + 1, 0)
+        starts = np.repeat(x0 - (np.cumsum(counts) - counts), counts)
+        xs = starts + np.arange(int(counts.sum()))
+        out.append(np.stack([xs, np.repeat(y, counts), np.full_like(xs, s)], axis=1))
+    if sum(len(part) for part in out) == 0:
         raise ValueError("the boundary path encloses no triangle")
     return np.concatenate(out)
