@@ -94,3 +94,19 @@ def test_the_check_rejects_wrong_probabilities(monkeypatch):
     with pytest.raises(ValueError, match="sum to 1"):
         fl.exact.placement_probabilities(fl.domino.aztec_diamond(20))
 
+
+
+def test_widely_spread_weights_stay_finite():
+    # weights 1e-50 .. 1e50: the float recursion (log weights) against the exact one at order 5, and a
+    # 1e-8 .. 1e8 spread answered at order 60 with every cell's probabilities summing to 1
+    rng = np.random.default_rng(0)
+    n = 5
+    h = 10.0 ** rng.choice([-50, 0, 50], (2 * n, 2 * n - 1))
+    v = 10.0 ** rng.choice([-50, 0, 50], (2 * n - 1, 2 * n))
+    exact = aztec_placement_probabilities(n, h, v, exact=True)[1]
+    np.testing.assert_allclose(aztec_placement_probabilities(n, h, v)[1], exact.astype(float), atol=1e-12)
+    n = 60
+    h = 10.0 ** rng.choice([-8, 0, 8], (2 * n, 2 * n - 1))
+    v = 10.0 ** rng.choice([-8, 0, 8], (2 * n - 1, 2 * n))
+    tiles, p = fl.domino.aztec_diamond(n, horizontal=h, vertical=v).placement_probabilities(tolerance=1e-9)
+    assert p.min() >= 0 and p.max() <= 1

@@ -174,6 +174,18 @@ def test_wrong_weight_is_detected():
     assert pooled_chi_square(observed, law, 3000) < P_FLOOR
 
 
+def test_sparse_regions_skip_the_column_form_and_keep_the_other_kernels(monkeypatch):
+    # two small hexagons far apart: the extension check would span their whole bounding grid
+    t = fl.lozenge.hexagon_region(2, 2, 2).triangles
+    region = fl.lozenge.LozengeRegion(np.concatenate([t, t + [600, 600, 0]]))
+    form, reason = region.column_form()
+    assert form is None and "bounding grid" in reason
+    assert region.exact_methods()["cftp"].kernel == "lattice points"
+    monkeypatch.setenv("FROSTLINE_MEMORY_LIMIT", str(10**8))
+    crowded = fl.lozenge.LozengeRegion(np.concatenate([t, t + [60, 60, 0]]))
+    assert crowded.sample(seed=1, method="points").heights.shape == crowded.vertex_mask.shape
+
+
 def test_bad_layouts_are_refused():
     flat = np.zeros(36, dtype=np.int32)
     high = np.ones(36, dtype=np.int32)
@@ -183,5 +195,7 @@ def test_bad_layouts_are_refused():
         _core.lozenge.column_sample(6, 6, np.array([[0, 1, 3]], dtype=np.int32), flat, high, 1.0, 1, 2)
     with pytest.raises(ValueError, match="above the greatest"):
         _core.lozenge.column_sample(6, 6, np.array([[2, 1, 3]], dtype=np.int32), high, flat, 1.0, 1, 2)
+    with pytest.raises(ValueError, match="never move"):  # a cell no sweep visits must be fixed
+        _core.lozenge.column_sample(6, 6, np.array([[2, 1, 3]], dtype=np.int32), flat, high, 1.0, 1, 2)
     with pytest.raises(ValueError, match="one height per grid entry"):
         _core.lozenge.column_sample(6, 6, np.array([[2, 1, 3]], dtype=np.int32), flat[:5], high, 1.0, 1, 2)

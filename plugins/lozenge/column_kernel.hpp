@@ -53,8 +53,15 @@ public:
         floor_ = grid_.split(least);
         cap_ = grid_.split(greatest);
         const std::int64_t size = static_cast<std::int64_t>(rows) * columns;
+        std::vector<char> in_run(static_cast<std::size_t>(size), 0);
+        for (const auto& run : runs_)
+            std::fill_n(in_run.begin() + static_cast<std::int64_t>(run.row) * columns + run.first,
+                        run.last - run.first + 1, 1);
         for (std::int64_t i = 0; i < size; ++i) {
             if (least[i] > greatest[i]) throw invalid_model("the least column grid lies above the greatest somewhere");
+            // a cell no sweep visits must be fixed, or the two chains could never meet
+            if (!in_run[static_cast<std::size_t>(i)] && least[i] != greatest[i])
+                throw invalid_model("a cell outside the runs has least < greatest: it would never move");
             lowest_ = std::min(lowest_, least[i]);
             highest_ = std::max(highest_, greatest[i]);
         }

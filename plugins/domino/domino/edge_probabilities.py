@@ -48,20 +48,34 @@ def face_weights(n: int, horizontal: Optional[np.ndarray], vertical: Optional[np
 
 
 def horizontal_ratios(n: int, horizontal: Optional[np.ndarray], vertical: Optional[np.ndarray], dtype: Any = float):
-    """[c_1, ..., c_n]: c_k (k, k) = w_T w_B / D of every order-k face, by urban renewal from order n down."""
+    """[c_1, ..., c_n]: c_k (k, k) = w_T w_B / D of every order-k face, by urban renewal from order n down.
+
+    Floats run on log weights (D by logaddexp, one common offset removed per
+    order): renewal divides by D order after order, which in plain floats
+    drives widely spread weights to 0/0 within tens of orders.
+    """
     t, r, b, l = face_weights(n, horizontal, vertical, dtype)
+    logs = dtype is float
+    if logs:
+        t, r, b, l = np.log(t), np.log(r), np.log(b), np.log(l)
     ratios = [None] * (n + 1)
     for k in range(n, 0, -1):
-        d = t * b + l * r
-        ratios[k] = (t * b) / d
+        if logs:
+            d = np.logaddexp(t + b, l + r)
+            ratios[k] = np.exp(t + b - d)
+        else:
+            d = t * b + l * r
+            ratios[k] = (t * b) / d
         if k == 1:
             break
         # order k - 1 face (a, b): top from face (a+1, b), right from (a+1, b+1), bottom from (a, b+1), left from
         # (a, b), each that side's weight over that face's D (the windows of shuffling.hpp's renewal)
-        t, r, b, l = t[1:, :-1] / d[1:, :-1], r[1:, 1:] / d[1:, 1:], b[:-1, 1:] / d[:-1, 1:], l[:-1, :-1] / d[:-1, :-1]
-        if dtype is float:  # one common factor changes no probability: keep the weights near 1
-            scale = max(float(np.max(t)), float(np.max(r)), float(np.max(b)), float(np.max(l)))
-            t, r, b, l = t / scale, r / scale, b / scale, l / scale
+        if logs:
+            t, r, b, l = t[1:, :-1] - d[1:, :-1], r[1:, 1:] - d[1:, 1:], b[:-1, 1:] - d[:-1, 1:], l[:-1, :-1] - d[:-1, :-1]
+            offset = max(float(np.max(t)), float(np.max(r)), float(np.max(b)), float(np.max(l)))
+            t, r, b, l = t - offset, r - offset, b - offset, l - offset  # one common factor changes no probability
+        else:
+            t, r, b, l = t[1:, :-1] / d[1:, :-1], r[1:, 1:] / d[1:, 1:], b[:-1, 1:] / d[:-1, 1:], l[:-1, :-1] / d[:-1, :-1]
     return ratios
 
 
@@ -120,5 +134,7 @@ def aztec_placement_probabilities(n: int, horizontal: Optional[np.ndarray] = Non
                              np.stack([r, c], 1)])
     tiles = np.stack([first, second], axis=1).astype(np.int64)
     p = np.concatenate([top, bottom, left, right])
+    if not exact:  # rounding can leave a probability 1e-14 outside [0, 1]
+        p = np.clip(p.astype(float), 0.0, 1.0)
     order = np.lexsort((tiles[:, 1, 1], tiles[:, 1, 0], tiles[:, 0, 1], tiles[:, 0, 0]))
     return tiles[order], p[order]

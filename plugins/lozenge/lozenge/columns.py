@@ -34,12 +34,15 @@ from typing import Optional, Tuple
 import numpy as np
 
 from frostline._limits import check_memory
+from frostline.errors import RegionTooLargeError
 from frostline.model import HeightModel
 
 #: grid memory of the column form per cell (four int32 grids, masks and the kernel's split copies)
 BYTES_PER_COLUMN = 64
 #: peak memory of the extension check per point of the region's padded grid
 EXTENSION_BYTES_PER_POINT = 600
+#: regions whose bounding grid has more points than this many times their triangles skip the column form
+SPARSE_GRID_FACTOR = 8
 
 
 @dataclass
@@ -62,8 +65,21 @@ class ColumnForm:
 
 
 def column_form(region) -> Tuple[Optional[ColumnForm], str]:
-    """(form, "") for a region whose tilings are cube-column grids, else (None, the reason)."""
+    """(form, "") for a region whose tilings are cube-column grids, else (None, the reason).
+
+    A form that would not fit in memory is no form: the other kernels may still run."""
+    try:
+        return _column_form(region)
+    except RegionTooLargeError as exc:
+        return None, f"its column form does not fit in memory ({exc})"
+
+
+def _column_form(region) -> Tuple[Optional[ColumnForm], str]:
     g = region.grid
+    if g.up.size > SPARSE_GRID_FACTOR * max(len(region.triangles), 1) + 10**5:
+        return None, (f"its bounding grid ({g.up.shape[0]}x{g.up.shape[1]} points) is more than "
+                      f"{SPARSE_GRID_FACTOR} times its {len(region.triangles)} triangles (pieces far apart?), so the "
+                      "check that its tilings are stacks of cubes would cost more than it saves")
     least_nodes, greatest_nodes = region.model.extremes()
     least = region._grid_heights(least_nodes).astype(np.int64)
     greatest = region._grid_heights(greatest_nodes).astype(np.int64)
