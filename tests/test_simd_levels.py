@@ -48,11 +48,16 @@ def test_forward_chains_agree_across_levels(monkeypatch, level):
     np.testing.assert_array_equal(box, generic)
 
 
-def test_weighted_box_is_unchanged_by_the_level(monkeypatch):
-    region = fl.lozenge.hexagon(6, 7, 5, q=0.85)
+@pytest.mark.parametrize("box", [(6, 7, 5, 0.85), (3, 530, 4, 1.3), (40, 30, 20, 0.97)])
+def test_weighted_box_is_unchanged_by_the_level(monkeypatch, box):
+    # the q^volume vector draws (frostline/vector/geometric_draws.inl): blocks of 256 cells (rows of 530
+    # cells hold three), q < 1 and q > 1 (negated heights), and threads sharing the rows
+    *sides, q = box
+    region = fl.lozenge.hexagon(*sides, q=q)
     reference = _sample(monkeypatch, "scalar", region, "generic", 4)
     for level in LEVELS:
         np.testing.assert_array_equal(_sample(monkeypatch, level, region, "box", 4), reference)
+    np.testing.assert_array_equal(region.sample(seed=4, method="box", threads=2).heights, reference)
 
 
 def test_unknown_or_unavailable_level_is_refused(monkeypatch):

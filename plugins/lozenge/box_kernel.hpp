@@ -6,8 +6,9 @@
 // class never neighbour each other, so the order inside a class (and how its
 // rows are shared among threads) cannot change the result; the generic
 // lowering in Python uses the same classes and ids, so for the same key every
-// path draws the same bits and returns the identical sample. The uniform rule
-// runs the vector row kernels (box_rows.inl), any other rule a scalar loop.
+// path draws the same bits and returns the identical sample. The uniform and
+// q^volume rules run the vector row kernels (box_rows.inl), any other rule a
+// scalar loop.
 #pragma once
 #include <algorithm>
 #include <cstdint>
@@ -74,7 +75,7 @@ public:
     box_sweeper(box_layout layout, Rule rule, random_key key, stream s, std::shared_ptr<thread_team> team = nullptr,
                 simd_level level = simd_choice())
         : layout_(layout), rule_(std::move(rule)), key_(key), stream_(s), team_(std::move(team)),
-          rows_(box_rows_for(level)) {}
+          rows_(box_rows_for(level)), geometric_rows_(box_geometric_for(level)) {}
 
     std::int64_t n_sites() const { return static_cast<std::int64_t>(layout_.rows()) * layout_.columns(); }
 
@@ -92,6 +93,15 @@ private:
                 for_blocks(team_, layout_.rows(), [&](std::int64_t first, std::int64_t last) {
                     rows_(layout_.geometry(), top, bottom, base, parity, static_cast<std::int32_t>(first),
                           static_cast<std::int32_t>(last));
+                });
+            } else if constexpr (std::is_same_v<Rule, geometric_rule>) {
+                // q^volume: the vector draws of geometric_draws.inl, the same values as rule_.draw
+                // (the table is taken here, not kept: a copied sweeper must read its own rule's table)
+                const geometric_table table = table_of(rule_);
+                for_blocks(team_, layout_.rows(), [&](std::int64_t first, std::int64_t last) {
+                    const auto a = static_cast<std::int32_t>(first), b = static_cast<std::int32_t>(last);
+                    geometric_rows_(layout_.geometry(), top, base, parity, a, b, table);
+                    if (bottom != nullptr) geometric_rows_(layout_.geometry(), bottom, base, parity, a, b, table);
                 });
             } else {
                 for (std::int32_t r = 0; r < layout_.rows(); ++r) {
@@ -121,6 +131,7 @@ private:
     stream stream_;
     std::shared_ptr<thread_team> team_;
     box_rows_function rows_;
+    box_geometric_function geometric_rows_;
 };
 
 }  // namespace frostline::lozenge

@@ -68,7 +68,39 @@ inline void box_uniform_rows(const box_geometry& g, std::int32_t* top, std::int3
     }
 }
 
-// The entry point each level exports (declared in box_rows.hpp).
+// One q^h sweep's class `parity` of one chain over rows first_row..last_row - 1
+// (geometric_draws.inl): bounds of a block of cells, then their draws.
+inline void box_geometric_rows(const box_geometry& g, std::int32_t* h, std::uint64_t base, std::int32_t parity,
+                               std::int32_t first_row, std::int32_t last_row, const geometric_table& table) {
+    const std::int64_t w = g.half_width;
+    alignas(64) std::int32_t lo[geometric_block];
+    alignas(64) std::int32_t hi[geometric_block];
+    for (std::int32_t r = first_row; r < last_row; ++r) {
+        const std::int32_t odd = (parity + r) & 1;
+        const std::int64_t n = odd ? g.b / 2 : (g.b + 1) / 2;
+        const std::int64_t at = ((static_cast<std::int64_t>(r) + 1) * 2 + odd) * w + 1;
+        const std::int64_t left = odd ? -w : w - 1;
+        const std::int64_t right = odd ? -w + 1 : w;
+        const std::uint64_t site = static_cast<std::uint64_t>(r) * static_cast<std::uint64_t>(g.b) + odd;
+        for (std::int64_t k0 = 0; k0 < n; k0 += geometric_block) {
+            const std::int64_t m = n - k0 < geometric_block ? n - k0 : geometric_block;
+            std::int32_t* out = h + at + k0;
+            for (std::int64_t k = 0; k < m; ++k) {
+                hi[k] = out[k - 2 * w] < out[k + left] ? out[k - 2 * w] : out[k + left];
+                lo[k] = out[k + 2 * w] > out[k + right] ? out[k + 2 * w] : out[k + right];
+            }
+            const std::uint64_t first_key = base + (site + 2 * static_cast<std::uint64_t>(k0) + 1) * vector_gamma;
+            geometric_block_draws(out, lo, hi, m, first_key, 2 * vector_gamma, table);
+        }
+    }
+}
+
+// The entry points each level exports (declared in box_rows.hpp).
+void geometric_rows(const box_geometry& g, std::int32_t* h, std::uint64_t base, std::int32_t parity,
+                    std::int32_t first_row, std::int32_t last_row, const geometric_table& table) {
+    box_geometric_rows(g, h, base, parity, first_row, last_row, table);
+}
+
 void uniform_rows(const box_geometry& g, std::int32_t* top, std::int32_t* bottom, std::uint64_t base,
                   std::int32_t parity, std::int32_t first_row, std::int32_t last_row) {
     box_uniform_rows(g, top, bottom, base, parity, first_row, last_row);

@@ -109,6 +109,12 @@ public:
     std::size_t table_size() const { return tail_.size(); }
     std::int64_t wide_intervals() const { return 0; }
 
+    // The table as plain data, for the vector draws (frostline/vector/geometric_draws.inl).
+    const double* tail() const { return tail_.data(); }
+    std::int64_t origin() const { return origin_; }
+    bool negated() const { return negate_; }
+    std::int32_t step() const { return step_; }
+
 private:
     std::int32_t draw_decreasing(std::int32_t lo, std::int32_t hi, std::uint64_t bits) const {
         const double u = static_cast<double>(bits >> 11) * 0x1.0p-53;
