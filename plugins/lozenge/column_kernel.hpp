@@ -21,6 +21,7 @@
 #include <vector>
 
 #include "frostline/errors.hpp"
+#include "frostline/geometric_table.hpp"
 #include "frostline/grid_run.hpp"
 #include "frostline/grid_runs.hpp"
 #include "frostline/local_rule.hpp"
@@ -41,6 +42,19 @@ using column_rows_function = void (*)(const grid_run*, std::int64_t, std::int64_
 
 inline column_rows_function column_rows_for(simd_level level) {
     return FROSTLINE_PICK_LEVEL(level, column_uniform_runs);
+}
+
+FROSTLINE_DECLARE_LEVELS(void, column_geometric_runs,
+                         (const grid_run* runs, std::int64_t n_runs, std::int64_t w, std::int32_t* h,
+                          const std::int32_t* floor, const std::int32_t* cap, std::uint64_t base,
+                          std::int32_t parity, const geometric_table& table))
+
+using column_geometric_function = void (*)(const grid_run*, std::int64_t, std::int64_t, std::int32_t*,
+                                           const std::int32_t*, const std::int32_t*, std::uint64_t, std::int32_t,
+                                           const geometric_table&);
+
+inline column_geometric_function column_geometric_for(simd_level level) {
+    return FROSTLINE_PICK_LEVEL(level, column_geometric_runs);
 }
 
 // The grid, its runs and the per-cell bounds (split layout), checked.
@@ -92,7 +106,7 @@ public:
     column_sweeper(const column_layout& layout, Rule rule, random_key key, stream s,
                    std::shared_ptr<thread_team> team = nullptr, simd_level level = simd_choice())
         : layout_(layout), rule_(std::move(rule)), key_(key), stream_(s), team_(std::move(team)),
-          rows_(column_rows_for(level)) {
+          rows_(column_rows_for(level)), geometric_rows_(column_geometric_for(level)) {
         cuts_ = balanced_cuts(layout_.runs(), layout_.n_sites(), team_ ? team_->size() : 1);
     }
 
@@ -111,6 +125,14 @@ private:
                 if constexpr (std::is_same_v<Rule, uniform_rule>) {
                     rows_(runs.data() + first, last - first, w, top, bottom, layout_.floor().data(),
                           layout_.cap().data(), base, parity);
+                } else if constexpr (std::is_same_v<Rule, geometric_rule>) {
+                    // q^volume: the vector draws, the same values as rule_.draw (the table is read from this
+                    // sweeper's own rule: a copied sweeper must not read another's)
+                    const geometric_table table = table_of(rule_);
+                    for (std::int32_t* h : {top, bottom})
+                        if (h != nullptr)
+                            geometric_rows_(runs.data() + first, last - first, w, h, layout_.floor().data(),
+                                            layout_.cap().data(), base, parity, table);
                 } else {
                     for (std::int64_t k = first; k < last; ++k) {
                         scalar_run(top, runs[static_cast<std::size_t>(k)], parity, base);
@@ -144,6 +166,7 @@ private:
     std::shared_ptr<thread_team> team_;
     std::vector<std::int64_t> cuts_;  // runs cuts_[p]..cuts_[p + 1] - 1 belong to part p
     column_rows_function rows_;
+    column_geometric_function geometric_rows_;
 };
 
 }  // namespace frostline::lozenge

@@ -75,3 +75,36 @@ void column_uniform_runs(const grid_run* runs, std::int64_t n_runs, std::int64_t
             column_row_pair(top + at, bottom + at, floor + at, cap + at, count, w, left, right, first_key);
     }
 }
+
+// One q^h sweep's class `parity` of one chain over runs[0..n_runs)
+// (geometric_draws.inl): bounds of a block of cells, then their draws.
+void column_geometric_runs(const grid_run* runs, std::int64_t n_runs, std::int64_t w, std::int32_t* h,
+                           const std::int32_t* floor, const std::int32_t* cap, std::uint64_t base,
+                           std::int32_t parity, const geometric_table& table) {
+    alignas(64) std::int32_t lo[geometric_block];
+    alignas(64) std::int32_t hi[geometric_block];
+    for (std::int64_t r = 0; r < n_runs; ++r) {
+        const grid_run& run = runs[r];
+        const std::int32_t first = run.first + ((run.row + run.first + parity) & 1);
+        if (first > run.last) continue;
+        const std::int64_t count = (run.last - first) / 2 + 1;
+        const std::int64_t col_odd = first & 1;
+        const std::int64_t at = (2 * static_cast<std::int64_t>(run.row) + col_odd) * w + (first >> 1) + 1;
+        const std::int64_t left = col_odd ? -w : w - 1, right = col_odd ? -w + 1 : w;
+        const std::uint64_t site = static_cast<std::uint64_t>(run.first_site + (first - run.first));
+        for (std::int64_t k0 = 0; k0 < count; k0 += geometric_block) {
+            const std::int64_t m = count - k0 < geometric_block ? count - k0 : geometric_block;
+            std::int32_t* out = h + at + k0;
+            const std::int32_t* f = floor + at + k0;
+            const std::int32_t* c = cap + at + k0;
+            for (std::int64_t k = 0; k < m; ++k) {
+                std::int32_t top = out[k - 2 * w] < out[k + left] ? out[k - 2 * w] : out[k + left];
+                std::int32_t bottom = out[k + 2 * w] > out[k + right] ? out[k + 2 * w] : out[k + right];
+                hi[k] = top < c[k] ? top : c[k];
+                lo[k] = bottom > f[k] ? bottom : f[k];
+            }
+            const std::uint64_t first_key = base + (site + 2 * static_cast<std::uint64_t>(k0) + 1) * vector_gamma;
+            geometric_block_draws(out, lo, hi, m, first_key, 2 * vector_gamma, table);
+        }
+    }
+}
