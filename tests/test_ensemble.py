@@ -196,3 +196,18 @@ def test_reducers_sum_exactly_in_any_order(tmp_path):
         fl.ensemble(REGION, 2, seed=3, workers=1, reducers={"mean": lambda s: s.heights.astype(float)})
     with pytest.raises(TypeError, match="reducers"):
         fl.ensemble(REGION, 2, seed=3, workers=1, reducers={"x": 3})
+
+
+def test_tile_densities_with_and_without_the_reducer(tmp_path):
+    from frostline.analysis import tile_counts
+
+    with_reducer = fl.ensemble(REGION, 10, seed=3, workers=2, reducers={"tile_counts": tile_counts(REGION, 1.5)})
+    stored = fl.ensemble(REGION, 10, seed=3, workers=2, store=tmp_path / "d.zarr")
+    a, b = with_reducer.tile_densities(), stored.tile_densities(1.5)   # b: counted from the stored members
+    np.testing.assert_array_equal(a, b)
+    filled = ~np.isnan(a[0])
+    np.testing.assert_allclose(a[:, filled].sum(axis=0), 1.0)   # the classes share each bin's tiles
+    # the same as counting every member of plain samples()
+    count = tile_counts(REGION, 1.5)
+    total = sum(count(s) for s in REGION.samples(10, seed=3))
+    np.testing.assert_allclose(a[:, filled], total[:, filled] / total.sum(axis=0)[filled])

@@ -195,6 +195,27 @@ class Ensemble:
         """{reducer name: the exact int64 sum of its values over the members} (see ``reducers``)."""
         return {} if self._reductions is None else {k: v.copy() for k, v in self._reductions.sums.items()}
 
+    def tile_densities(self, bin_size: float = 1.0) -> np.ndarray:
+        """Density of each tile class on a grid of square bins: float (classes, nx, ny), the fraction of
+        the tiles in each bin that belong to each class, over all members (NaN in empty bins).
+
+        From the ``tile_counts`` reducer when the ensemble ran with it (its bin
+        size is used and ``bin_size`` ignored); otherwise counted now from the
+        members, read from the store or drawn again (the same samples), with
+        :func:`frostline.analysis.tile_counts` at ``bin_size`` (plane units).
+        """
+        counts = self.reduced.get("tile_counts")
+        if counts is None:
+            from .analysis import tile_counts
+
+            count = tile_counts(self.region, bin_size)
+            counts = count(self[0])
+            for i in range(1, self.size):
+                counts = counts + count(self[i])
+        total = counts.sum(axis=0)
+        with np.errstate(invalid="ignore", divide="ignore"):
+            return np.where(total > 0, counts / np.where(total > 0, total, 1), np.nan)
+
     @property
     def sums(self) -> Tuple[np.ndarray, np.ndarray, int]:
         """(sum of heights, sum of squared heights, members): exact int64 arrays, mergeable in any order."""
