@@ -137,12 +137,13 @@ def path_points(steps: Sequence[Tuple[int, int]], start: Tuple[int, int] = (0, 0
     if tuple(pts[-1]) != tuple(pts[0]):
         raise ValueError(f"the boundary path is open: it starts at {tuple(int(v) for v in pts[0])} and ends at "
                          f"{tuple(int(v) for v in pts[-1])}; a boundary must return to its start")
-    seen: Dict[Tuple[int, ...], int] = {}
-    for k, p in enumerate(map(tuple, pts[:-1].tolist())):
-        if p in seen:
-            raise ValueError(f"the boundary path visits the lattice point {p} twice (after steps {seen[p]} and {k}); "
-                             "a boundary must be a simple closed curve")
-        seen[p] = k
+    visited = pts[:-1]
+    _, first, counts = np.unique(visited, axis=0, return_index=True, return_counts=True)
+    if np.any(counts > 1):
+        point = visited[first[np.flatnonzero(counts > 1)].min()]
+        k0, k1 = np.flatnonzero(np.all(visited == point, axis=1))[:2]
+        raise ValueError(f"the boundary path visits the lattice point {tuple(int(v) for v in point)} twice (after "
+                         f"steps {int(k0)} and {int(k1)}); a boundary must be a simple closed curve")
     return pts
 
 
