@@ -211,3 +211,18 @@ def test_tile_densities_with_and_without_the_reducer(tmp_path):
     count = tile_counts(REGION, 1.5)
     total = sum(count(s) for s in REGION.samples(10, seed=3))
     np.testing.assert_allclose(a[:, filled], total[:, filled] / total.sum(axis=0)[filled])
+
+
+def test_the_store_keeps_the_exact_sums_for_other_programs(tmp_path):
+    import zarr
+
+    from frostline.analysis import tile_counts
+
+    path = tmp_path / "s.zarr"
+    e = fl.ensemble(REGION, 8, seed=2, workers=2, store=path, reducers={"tiles": tile_counts(REGION, 1.0)})
+    stats = zarr.open_group(str(path), mode="r")["statistics"]
+    total, squares, members = e.sums
+    np.testing.assert_array_equal(np.asarray(stats["sum_heights"]), total)
+    np.testing.assert_array_equal(np.asarray(stats["sum_squares"]), squares)
+    np.testing.assert_array_equal(np.asarray(stats["reduced_tiles"]), e.reduced["tiles"])
+    assert stats.attrs["members"] == members == 8

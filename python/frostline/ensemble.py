@@ -352,7 +352,28 @@ def ensemble(region: Any, size: int, seed: SeedLike = None, *, store: Any = None
     finally:
         if writer is not None:  # members finished before a Ctrl-C or an error are kept
             writer.flush()
+    if group is not None:
+        _save_statistics(group, sums, reductions)
     return Ensemble(region, size, root, method, group, sums, infos, reductions)
+
+
+def _save_statistics(group: Any, sums: _Sums, reductions: _Reductions) -> None:
+    """The exact sums behind the statistics, saved beside the members (by the coordinating process).
+
+    ``statistics/sum_heights`` and ``statistics/sum_squares`` (int64), one array
+    per reducer, and the number of members they cover in the attribute
+    ``members``. They are a convenience for other programs: frostline itself
+    recomputes them from the committed members whenever a store is reopened,
+    so a stale or damaged copy is never read as data.
+    """
+    stats = group.require_group("statistics")
+    arrays = {"sum_heights": sums.total, "sum_squares": sums.squares}
+    arrays.update({f"reduced_{name}": total for name, total in reductions.sums.items()})
+    for name, data in arrays.items():
+        target = stats.create_array(name, shape=data.shape, dtype="int64", fill_value=0, overwrite=True,
+                                    compressors=_codecs())
+        target[...] = data
+    stats.attrs.update({"members": int(sums.members)})
 
 
 class _MemberWriter:
