@@ -25,7 +25,7 @@ else:  # pragma: no cover
 ENGINE = {"_core", "_version", "_validate", "_limits", "errors", "seeding", "model", "methods", "sample", "chain",
           "region", "lattice_spec", "registry", "progress", "height_walk", "diagnostics"}
 TOOLKIT = {"exact", "toolkit", "variational"}
-USER = {"analysis", "plot", "io", "cli", "ensemble"}
+USER = {"analysis", "plot", "io", "cli", "__main__", "ensemble"}
 
 
 def package_map() -> Dict[str, Path]:
