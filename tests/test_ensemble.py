@@ -211,6 +211,8 @@ def test_tile_densities_with_and_without_the_reducer(tmp_path):
     count = tile_counts(REGION, 1.5)
     total = sum(count(s) for s in REGION.samples(10, seed=3))
     np.testing.assert_allclose(a[:, filled], total[:, filled] / total.sum(axis=0)[filled])
+    with pytest.raises(ValueError, match="no members"):
+        fl.ensemble(REGION, 0, seed=1).tile_densities()
 
 
 def test_the_store_keeps_the_exact_sums_for_other_programs(tmp_path):

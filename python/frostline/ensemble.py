@@ -205,6 +205,8 @@ class Ensemble:
         :func:`frostline.analysis.tile_counts` at ``bin_size`` (plane units).
         """
         counts = self.reduced.get("tile_counts")
+        if counts is None and self.size == 0:
+            raise ValueError("the ensemble has no members, so no tile densities")
         if counts is None:
             from .analysis import tile_counts
 
