@@ -29,7 +29,7 @@ from frostline.model import HeightModel
 from frostline.region import Region
 from frostline.variational import VariationalRegion
 
-from .columns import column_form, grid_from_model, heights_from_columns, lower_columns
+from .columns import ColumnForm, column_form, grid_from_model, heights_from_columns, lower_columns
 from .geometry import BYTES_PER_TRIANGLE, EDGE_ENDS, PARTNER, TriangleGrid
 from .parameters import QLike, weight
 from .tile_mixin import LozengeTiles
@@ -125,7 +125,7 @@ class LozengeRegion(LozengeTiles, VariationalRegion, Region):
                 if name in methods}
 
     def unavailable_methods(self) -> Dict[str, str]:
-        out = {}
+        out: Dict[str, str] = {}
         reason = self.column_form()[1]
         if reason:
             out["columns"] = f"this region has no cube-column form: {reason}"
@@ -133,14 +133,23 @@ class LozengeRegion(LozengeTiles, VariationalRegion, Region):
             out["points"] = "the lattice-point kernel runs uniform weights only (q = 1); use 'cftp' or 'points-generic'"
         return out
 
-    def column_form(self):
-        """(the region's :class:`~.columns.ColumnForm`, "") or (None, why it has none); built once."""
+    def column_form(self) -> Tuple[Optional[ColumnForm], str]:
+        """(the region's :class:`~.columns.ColumnForm`, "") or (None, why it has none); built once.
+
+        A region has a column form when its tilings are the stacks of cubes over one grid of
+        columns (docs/column_form.md); then ``"cftp"`` runs the cube-column kernel."""
         if self._column_parts is None:
             self._column_parts = column_form(self)
         return self._column_parts
 
+    def _form(self) -> ColumnForm:
+        form, reason = self.column_form()
+        if form is None:
+            raise ValueError(f"this region has no cube-column form: {reason}")
+        return form
+
     def _column_sample(self, key, options: RunOptions):
-        form = self.column_form()[0]
+        form = self._form()
         rows, columns = form.free.shape
         grid, report = _core.lozenge.column_sample(rows, columns, form.runs, form.least.ravel(),
                                                    form.greatest.ravel(), self.q, key[0], key[1],
@@ -150,7 +159,7 @@ class LozengeRegion(LozengeTiles, VariationalRegion, Region):
         return heights_from_columns(self, form, grid), report
 
     def _column_generic(self, key, options: RunOptions):
-        form = self.column_form()[0]
+        form = self._form()
         model = lower_columns(form)
         nodes, report = model.sample(self.q, key, check_order=options.check_order,
                                      max_start_time=options.max_start_time, progress=options.progress)
