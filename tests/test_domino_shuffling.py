@@ -181,7 +181,7 @@ def test_output_is_a_tiling_of_the_diamond(n, name):
     mask = aztec_mask(n)
     for seed in range(6):
         tiles = shuffle(n, horizontal, vertical, *keys([n, seed]))
-        assert tiles.dtype == np.int32 and tiles.shape == (n * (n + 1), 2, 2)
+        assert tiles.dtype == np.int64 and tiles.shape == (n * (n + 1), 2, 2)
         assert is_tiling_of(tiles, mask)
         rows = [tuple(t) for t in tiles.reshape(-1, 4).tolist()]
         assert rows == sorted(rows)

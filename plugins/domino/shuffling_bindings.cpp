@@ -45,7 +45,7 @@ std::optional<weight_array> weights_or_none(const py::object& value, const char*
     return a;
 }
 
-py::array_t<std::int32_t> aztec_shuffle(std::int64_t n, const py::object& horizontal, const py::object& vertical,
+py::array_t<std::int64_t> aztec_shuffle(std::int64_t n, const py::object& horizontal, const py::object& vertical,
                                         std::uint64_t key0, std::uint64_t key1, const py::object& progress,
                                         std::int64_t segment_orders, double memory_limit, int threads) {
     if (n < 0) throw invalid_model("the order n of the Aztec diamond must be >= 0, got " + std::to_string(n));
@@ -70,7 +70,8 @@ py::array_t<std::int32_t> aztec_shuffle(std::int64_t n, const py::object& horizo
         dominoes = domino::aztec_shuffle(n, h_data, v_data, make_key(key0, key1), &control, segment_orders,
                                          memory_limit, team);
     }
-    py::array_t<std::int32_t> out({static_cast<py::ssize_t>(n * (n + 1)), py::ssize_t(2), py::ssize_t(2)});
+    // int64, the dtype of every tiles array: widened here, in one pass, not by numpy afterwards.
+    py::array_t<std::int64_t> out({static_cast<py::ssize_t>(n * (n + 1)), py::ssize_t(2), py::ssize_t(2)});
     std::copy(dominoes.begin(), dominoes.end(), out.mutable_data());
     return out;
 }
@@ -95,7 +96,7 @@ are kept at once (0: automatic); it never changes the tiling.
 memory_limit: bytes the run may use (frostline passes FROSTLINE_MEMORY_LIMIT's
 value); a larger estimate is refused before anything is allocated.
 threads: threads sharing each order's rows of faces (the tiling is the same for any count).
-Returns int32 (n(n+1), 2, 2): each domino as [(r1, c1), (r2, c2)], first
+Returns int64 (n(n+1), 2, 2): each domino as [(r1, c1), (r2, c2)], first
 cell top or left, rows sorted.)doc");
 }
 
