@@ -1,4 +1,4 @@
-"""Memory estimates hold: each is at least the measured peak and at most twice it.
+"""Memory estimates hold: each is at least the measured peak and at most 1.5 times it.
 
 Each case runs in a fresh subprocess, which reports the increase of its peak
 resident memory (VmHWM of /proc/self/status: unlike ru_maxrss it starts
@@ -18,7 +18,11 @@ import pytest
 pytestmark = pytest.mark.skipif(not sys.platform.startswith("linux"), reason="reads /proc/self/status")
 
 CASES = {
-    "domino region": ("fl.domino.aztec_diamond(1200)", "36 * 2401 ** 2"),
+    "domino region": ("fl.domino.aztec_diamond(1200)", "region_bytes(2400, 2400, 2 * 1200 * 1201, False)"),
+    "weighted domino region": ("fl.domino.aztec_diamond(1200, two_periodic_weights=(1.0, 0.5))",
+                               "region_bytes(2400, 2400, 2 * 1200 * 1201, True)"),
+    "domino mask with weights": ("fl.domino.DominoRegion(MASK, vertical=np.ones((1999, 2000)), known_tileable=True)",
+                                 "region_bytes(2000, 2000, 2000 ** 2, True)"),
     "domino engine": ("fl.domino.aztec_diamond(600)._engine()", "450 * 1201 ** 2"),
     "square ice": ("fl.square_ice.domain_wall(900)", "640 * 901 ** 2"),
     "lozenge region": ("fl.lozenge.hexagon_region(300, 300, 300)", "560 * 6 * 300 ** 2 + 10 ** 6"),
@@ -41,6 +45,9 @@ def test_estimate_bounds_the_measured_peak(name):
                     return int(line.split()[1]) * 1024
         fl.domino.aztec_diamond(2)._engine(); fl.square_ice.domain_wall(2)  # imports and first-use caches
         fl.lozenge.hexagon_region(2, 2, 2)
+        import numpy as np
+        from frostline.domino.region import region_bytes
+        MASK = np.ones((2000, 2000), bool)  # the caller's own array, made before the measurement
         before = high_water()
         ZIGZAG = {ZIGZAG}
         value = {build}
@@ -49,7 +56,7 @@ def test_estimate_bounds_the_measured_peak(name):
     out = subprocess.run([sys.executable, "-c", script], capture_output=True, text=True, check=True).stdout
     figures = json.loads(out.strip().splitlines()[-1])
     assert figures["peak"] > 50e6  # the case is big enough to measure
-    assert figures["peak"] <= figures["estimate"] <= 2.0 * figures["peak"], figures
+    assert figures["peak"] <= figures["estimate"] <= 1.5 * figures["peak"], figures
 
 
 def test_rectangles_fit_the_same_estimate():
@@ -63,8 +70,9 @@ def test_rectangles_fit_the_same_estimate():
         fl.domino.rectangle(2, 2)
         before = high_water()
         fl.domino.rectangle(2000, 2000)
-        print(json.dumps({"peak": high_water() - before, "estimate": 36 * 2001 ** 2}))
+        from frostline.domino.region import region_bytes
+        print(json.dumps({"peak": high_water() - before, "estimate": region_bytes(2000, 2000, 2000 ** 2, False)}))
     """)
     figures = json.loads(subprocess.run([sys.executable, "-c", script], capture_output=True, text=True,
                                         check=True).stdout.strip().splitlines()[-1])
-    assert figures["peak"] <= figures["estimate"] <= 2.0 * figures["peak"], figures
+    assert figures["peak"] <= figures["estimate"] <= 1.5 * figures["peak"], figures

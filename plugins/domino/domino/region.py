@@ -50,11 +50,21 @@ def as_mask(mask: Any) -> np.ndarray:
     return m
 
 
-#: memory per corner of the grid: the region itself (masks, boundary), checked before it is built, and
-#: the sampling engine (generic model, Thurston's extremes, kernel layout), checked before that is built.
-#: Measured peaks (tests/test_memory_estimates.py): about 20-31 and 380 bytes per corner.
-BYTES_PER_CORNER = 36
+#: memory of the sampling engine (generic model, Thurston's extremes, kernel layout) per corner of the
+#: grid, checked before it is built; measured peak about 400 bytes (tests/test_memory_estimates.py).
 ENGINE_BYTES_PER_CORNER = 450
+
+
+def region_bytes(rows: int, columns: int, cells: int, weighted: bool) -> int:
+    """Memory for building a region on a rows x columns mask with ``cells`` cells, checked before it is built.
+
+    Corner arrays (geometry, boundary walk) cost about 16 bytes per corner of
+    the grid and the cell-indexed ones about 16 per cell of the region; weights
+    about 32 per cell of the grid (two float64 arrays and their validated
+    copies). Measured peaks lie within 1.25x below this (tests/test_memory_estimates.py).
+    """
+    return 18 * (rows + 1) * (columns + 1) + 18 * cells + (34 * rows * columns if weighted else 0)
+
 
 
 class DominoRegion(VariationalRegion, Region):
@@ -67,7 +77,8 @@ class DominoRegion(VariationalRegion, Region):
                  description: Optional[Dict[str, Any]] = None, known_tileable: bool = False) -> None:
         self.mask = as_mask(mask)
         R, C = self.mask.shape
-        check_memory(BYTES_PER_CORNER * (R + 1) * (C + 1), f"a {R}x{C} mask")
+        weighted = horizontal is not None or vertical is not None
+        check_memory(region_bytes(R, C, int(np.count_nonzero(self.mask)), weighted), f"a {R}x{C} mask")
         self.weights: Optional[Weights] = check_weights(horizontal, vertical, (R, C))
         if isinstance(class_offset, bool) or not isinstance(class_offset, numbers.Integral):
             raise TypeError("class_offset must be an int")

@@ -9,7 +9,7 @@ from frostline._limits import check_memory
 from frostline._validate import integer
 
 from .geometry import aztec_mask
-from .region import BYTES_PER_CORNER, DominoRegion
+from .region import DominoRegion, region_bytes
 from .weights import biased, two_periodic
 
 FILLED = "#xX@"
@@ -36,7 +36,8 @@ def aztec_diamond(n: int, *, horizontal: Any = None, vertical: Any = None, verti
     64
     """
     n = _order(n, "the order n")
-    check_memory(BYTES_PER_CORNER * (2 * n + 1) ** 2, f"the Aztec diamond of order {n}")  # before any array
+    weighted = any(x is not None for x in (horizontal, vertical, vertical_weight, two_periodic_weights))
+    check_memory(region_bytes(2 * n, 2 * n, 2 * n * (n + 1), weighted), f"the Aztec diamond of order {n}")  # before any array
     given = sum(x is not None for x in (vertical_weight, two_periodic_weights)) + (horizontal is not None or vertical is not None)
     if given > 1:
         raise ValueError("give weights one way: arrays, vertical_weight or two_periodic_weights")
@@ -57,7 +58,8 @@ def aztec_diamond(n: int, *, horizontal: Any = None, vertical: Any = None, verti
 def rectangle(rows: int, columns: int, *, horizontal: Any = None, vertical: Any = None) -> DominoRegion:
     """The rows x columns rectangle (counted by the Kasteleyn / Temperley-Fisher product)."""
     rows, columns = _order(rows, "rows"), _order(columns, "columns")
-    check_memory(BYTES_PER_CORNER * (rows + 1) * (columns + 1), f"the {rows}x{columns} rectangle")
+    check_memory(region_bytes(rows, columns, rows * columns, horizontal is not None or vertical is not None),
+                 f"the {rows}x{columns} rectangle")
     if rows * columns % 2:
         raise ValueError(f"a {rows}x{columns} rectangle has an odd number of cells and cannot be tiled")
     return DominoRegion(np.ones((rows, columns), bool), horizontal, vertical,
