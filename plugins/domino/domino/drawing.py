@@ -5,8 +5,17 @@ from typing import Any, Optional, Sequence
 
 import numpy as np
 
+from frostline._limits import check_memory
 from frostline.toolkit import palette
-from frostline.toolkit.drawing import RASTER_TILES, add_key, frame, hex_to_rgb, show_raster
+from frostline.toolkit.drawing import (
+    RASTER_TILES,
+    add_key,
+    frame,
+    hex_to_rgb,
+    output_pixels,
+    picture_bytes,
+    show_raster,
+)
 
 CLASS_TONES = palette.DOMINO_CLASSES  # north, south, east, west: warm horizontal, cool vertical
 
@@ -37,9 +46,15 @@ def draw_dominoes(tiles: np.ndarray, classes: np.ndarray, ax: Any = None, *, ton
         _, ax = plt.subplots(figsize=(6, 6))
     if key is not None:
         add_key(ax, [(name, tone, None) for name, tone in zip(key, tones)])
-    if len(np.asarray(tiles).reshape(-1, 2, 2)) > RASTER_TILES:
+    tiles = np.asarray(tiles).reshape(-1, 2, 2)
+    if len(tiles) > RASTER_TILES:
+        rows, cols = (np.ptp(tiles[:, :, k]) + 1 for k in (0, 1))
+        check_memory(picture_bytes(output_pixels(ax), raster_cells=int(rows) * int(cols),
+                                   raster_work=raster_bytes(int(rows), int(cols), len(tiles))),
+                     f"a picture of {len(tiles)} dominoes")
         image, extent = raster_dominoes(tiles, classes, tones=tones)
         return show_raster(ax, image, extent, title)
+    check_memory(picture_bytes(output_pixels(ax), tiles=len(tiles)), f"a picture of {len(tiles)} dominoes")
     rects = domino_rectangles(tiles)
     colours = list(np.array(tones, dtype=object)[np.asarray(classes, dtype=int)]) if len(rects) else []
     large = len(rects) > 1500
@@ -50,13 +65,22 @@ def draw_dominoes(tiles: np.ndarray, classes: np.ndarray, ax: Any = None, *, ton
     return frame(ax, rects, title)
 
 
+def raster_bytes(rows: int, cols: int, dominoes: int) -> int:
+    """Peak memory (bytes) of :func:`raster_dominoes`: the float32 RGBA image and the per-domino index arrays.
+
+    Fitted to measured peaks of resident memory (tests/test_memory_estimates.py).
+    """
+    return 16 * rows * cols + 32 * dominoes + 10**6
+
+
 def raster_dominoes(tiles: np.ndarray, classes: np.ndarray, *, tones: Sequence[str] = CLASS_TONES) -> tuple:
-    """An RGBA image with one pixel per cell (row 0 at the top; transparent outside) and its plane extent."""
+    """A float32 RGBA image with one pixel per cell (row 0 at the top; transparent outside) and its plane extent."""
     t = np.asarray(tiles, dtype=np.int64).reshape(-1, 2, 2)
     if len(t) == 0:
         raise ValueError("there are no dominoes to draw")
-    r0, c0 = t[:, :, 0].min(), t[:, :, 1].min()
-    rows, cols = t[:, :, 0].max() - r0 + 1, t[:, :, 1].max() - c0 + 1
+    r0, c0 = int(t[:, :, 0].min()), int(t[:, :, 1].min())
+    rows, cols = int(t[:, :, 0].max()) - r0 + 1, int(t[:, :, 1].max()) - c0 + 1
+    check_memory(raster_bytes(rows, cols, len(t)), f"a {rows}x{cols} picture of {len(t)} dominoes")
     image = np.zeros((rows, cols, 4), dtype=np.float32)
     rgba = np.array([(*hex_to_rgb(c), 1.0) for c in tones], dtype=np.float32)
     colour = rgba[np.asarray(classes, dtype=np.int64)]

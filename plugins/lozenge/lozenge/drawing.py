@@ -5,13 +5,24 @@ from typing import Any, Optional, Sequence
 
 import numpy as np
 
+from frostline._limits import check_memory
 from frostline.toolkit import palette
-from frostline.toolkit.drawing import RASTER_TILES, add_key, frame, hex_to_rgb, show_raster
+from frostline.toolkit.drawing import (
+    RASTER_TILES,
+    add_key,
+    frame,
+    hex_to_rgb,
+    output_pixels,
+    picture_bytes,
+    show_raster,
+)
 
 from .tiles import DOWN_PARTNER, LOZENGE_CORNERS, SQRT3_2, lozenge_polygons, plane_points
 
 FACE_TONES = palette.LOZENGE_FACES  # cube tops pale, the two visible sides in two darker tones
 #: what each lozenge type is in the stack-of-cubes picture (tiles.tiles_of_plane_partition)
+RASTER_PIXELS = 2400  # longer side of the image that stands for a large tiling
+ROW_BLOCK = 256  # image rows computed at a time: bounds the float work arrays
 TYPE_NAMES = ("type 0: cube tops", "type 1: faces along +X", "type 2: faces along -Y")
 
 
@@ -36,8 +47,13 @@ def draw_lozenges(tiles: np.ndarray, ax: Any = None, *, tones: Sequence[str] = F
     if key:
         add_key(ax, [(name, tone, None) for name, tone in zip(TYPE_NAMES, tones)])
     if len(tiles) > RASTER_TILES:
-        image, extent = raster_lozenges(tiles, tones=tones)
+        # the image's longer side is RASTER_PIXELS: its square bounds the cells
+        check_memory(picture_bytes(output_pixels(ax), raster_cells=RASTER_PIXELS ** 2,
+                                   raster_work=raster_bytes(RASTER_PIXELS, RASTER_PIXELS, len(tiles))),
+                     f"a picture of {len(tiles)} lozenges")
+        image, extent = raster_lozenges(tiles, RASTER_PIXELS, tones=tones)
         return show_raster(ax, image, extent, title)
+    check_memory(picture_bytes(output_pixels(ax), tiles=len(tiles)), f"a picture of {len(tiles)} lozenges")
     polygons = lozenge_polygons(tiles)
     colours = list(np.array(tones, dtype=object)[tiles[:, 2]]) if len(tiles) else []
     large = len(tiles) > 1000
@@ -53,7 +69,16 @@ def draw_lozenges(tiles: np.ndarray, ax: Any = None, *, tones: Sequence[str] = F
     return frame(ax, polygons, title)
 
 
-def raster_lozenges(tiles: np.ndarray, pixels: int = 2400, *, tones: Sequence[str] = FACE_TONES,
+def raster_bytes(width: int, height: int, lozenges: int) -> int:
+    """Peak memory (bytes) of :func:`raster_lozenges`: the float32 image, one block of rows of float
+    work arrays, and the sorted triangle keys.
+
+    Fitted to measured peaks of resident memory (tests/test_memory_estimates.py).
+    """
+    return 16 * width * height + ROW_BLOCK * 100 * width + 150 * lozenges + 10**6
+
+
+def raster_lozenges(tiles: np.ndarray, pixels: int = RASTER_PIXELS, *, tones: Sequence[str] = FACE_TONES,
                     oversample: int = 2) -> tuple:
     """An RGBA image of the tiling (float32, longer side ``pixels``) and its extent (x0, x1, y0, y1), plane units.
 
@@ -89,6 +114,7 @@ def raster_lozenges(tiles: np.ndarray, pixels: int = 2400, *, tones: Sequence[st
         height, width = pixels, max(1, int(round(pixels / aspect)))
     else:
         width, height = pixels, max(1, int(round(pixels * aspect)))
+    check_memory(raster_bytes(width, height, len(tiles)), f"a {width}x{height} picture of {len(tiles)} lozenges")
     # triangle key: (x, y, s) -> lozenge type, sorted for searchsorted
     partner = tiles[:, :2] + DOWN_PARTNER[tiles[:, 2]]
     cells = np.concatenate([tiles[:, :2], partner])
@@ -107,8 +133,8 @@ def raster_lozenges(tiles: np.ndarray, pixels: int = 2400, *, tones: Sequence[st
     image = np.zeros((height, width, 4), dtype=np.float32)
     step_x, step_y = (x1 - x0) / width, (y1 - y0) / height
     offsets = (np.arange(oversample) + 0.5) / oversample
-    for row_start in range(0, height, 256):
-        rows = np.arange(row_start, min(height, row_start + 256))
+    for row_start in range(0, height, ROW_BLOCK):
+        rows = np.arange(row_start, min(height, row_start + ROW_BLOCK))
         rgb = np.zeros((len(rows), width, 3), dtype=np.float32)
         cover = np.zeros((len(rows), width), dtype=np.float32)
         for oy in offsets:
@@ -124,7 +150,6 @@ def raster_lozenges(tiles: np.ndarray, pixels: int = 2400, *, tones: Sequence[st
                 inside = keys[at] == k
                 rgb += np.where(inside[..., None], colours[kinds[at]], 0.0)
                 cover += inside
-        with np.errstate(invalid="ignore", divide="ignore"):
-            image[rows, :, :3] = np.where(cover[..., None] > 0, rgb / np.maximum(cover, 1)[..., None], 1.0)
+        image[rows, :, :3] = np.where(cover[..., None] > 0, rgb / np.maximum(cover, 1)[..., None], 1.0)
         image[rows, :, 3] = cover / oversample ** 2
     return image, (float(x0), float(x1), float(y0), float(y1))

@@ -5,12 +5,15 @@ figures around that, for any lattice.
 """
 from __future__ import annotations
 
+import math
 import os
 from typing import Any, Optional
 
 import numpy as np
 
+from .._limits import check_memory
 from ..toolkit import palette
+from ..toolkit.drawing import picture_bytes
 
 FORMATS = (".png", ".svg", ".pdf")
 
@@ -25,17 +28,36 @@ def _pyplot():
     return plt
 
 
+def _check_format(path: str | os.PathLike[str]) -> str:
+    ext = os.path.splitext(str(path))[1].lower()
+    if ext not in FORMATS:
+        raise ValueError(f"picture format {ext or '(none)'!r} is not supported; use one of {', '.join(FORMATS)}")
+    return ext
+
+
+def _check_size(size: float, dpi: int) -> int:
+    """Validate a figure side (inches) and dpi; returns the picture's pixels."""
+    if isinstance(size, bool) or not isinstance(size, (int, float, np.integer, np.floating)) \
+            or not math.isfinite(size) or not 0 < size <= 1000:
+        raise ValueError(f"size (the figure's side in inches) must be a number in (0, 1000], got {size!r}")
+    if isinstance(dpi, bool) or not isinstance(dpi, (int, np.integer)) or not 1 <= dpi <= 10000:
+        raise ValueError(f"dpi must be an int from 1 to 10000, got {dpi!r}")
+    return int(size * dpi) ** 2
+
+
 def save(sample: Any, path: str | os.PathLike[str], *, size: float = 6.0, dpi: int = 200, title: Optional[str] = None,
          **style: Any) -> str:
     """Draw ``sample`` and write it to ``path`` (format from the extension: .png, .svg or .pdf).
 
-    ``size`` is the figure's side in inches; returns the path written.
+    ``size`` is the figure's side in inches and ``dpi`` its pixels per inch
+    (for .png); returns the path written. The memory of the picture is
+    estimated before anything is drawn (``FROSTLINE_MEMORY_LIMIT``).
     """
-    ext = os.path.splitext(str(path))[1].lower()
-    if ext not in FORMATS:
-        raise ValueError(f"picture format {ext or '(none)'!r} is not supported; use one of {', '.join(FORMATS)}")
+    _check_format(path)
+    pixels = _check_size(size, dpi)
+    check_memory(picture_bytes(pixels), f"a {size:g}-inch picture at {dpi} dpi")
     plt = _pyplot()
-    fig, ax = plt.subplots(figsize=(size, size))
+    fig, ax = plt.subplots(figsize=(size, size), dpi=dpi)  # the file's dpi, so plugins estimate its pixels
     try:
         sample.plot(ax=ax, **style)
         if title:
@@ -71,11 +93,12 @@ def save_densities(densities: dict, path: str | os.PathLike[str], *, title: Opti
     densities}) draws every tile position filled, so the map follows the
     lattice and probabilities near 1 stay visible; without it, dots.
     """
-    ext = os.path.splitext(str(path))[1].lower()
-    if ext not in FORMATS:
-        raise ValueError(f"picture format {ext or '(none)'!r} is not supported; use one of {', '.join(FORMATS)}")
-    plt = _pyplot()
+    _check_format(path)
+    _check_size(3.8, dpi)
     k = len(densities)
+    check_memory(picture_bytes(int(3.6 * k * dpi) * int(3.8 * dpi), tiles=sum(len(p) for _, p in densities.values())),
+                 f"a picture of {k} density panels at {dpi} dpi")
+    plt = _pyplot()
     fig, axes = plt.subplots(1, k, figsize=(3.6 * k, 3.8), squeeze=False)
     image = None
     for ax, (name, (centres, p)) in zip(axes[0], densities.items()):
