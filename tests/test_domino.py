@@ -48,6 +48,43 @@ def test_rectangle_counts_product_formula_vs_determinant(m, n):
     assert R.count() == det == sum(1 for _ in domino_tilings(R.mask)) if m * n <= 24 else R.count() == det
 
 
+def kasteleyn_product(m, n):
+    """The Kasteleyn / Temperley-Fisher (1961) product in real arithmetic (mpmath), rounded: the reference."""
+    import mpmath
+
+    with mpmath.workdps(int(0.13 * m * n) + 40):
+        value = mpmath.mpf(1)
+        for j in range(1, (m + 1) // 2 + 1):
+            for k in range(1, (n + 1) // 2 + 1):
+                value *= 4 * mpmath.cos(mpmath.pi * j / (m + 1)) ** 2 + 4 * mpmath.cos(mpmath.pi * k / (n + 1)) ** 2
+        return int(mpmath.nint(value))
+
+
+@pytest.mark.parametrize("m, n", [(m, n) for m in range(1, 13) for n in range(1, 13) if m * n % 2 == 0]
+                         + [(2, 301), (31, 40), (64, 64), (3, 1000), (120, 7)])
+def test_rectangle_resultant_equals_the_real_product(m, n):
+    # the resultant form (frostline.domino.rectangle_count) against the product it rewrites
+    from frostline.domino.counts import rectangle_count
+
+    assert rectangle_count(m, n) == rectangle_count(n, m) == kasteleyn_product(m, n)
+
+
+def test_rectangle_counts_of_thin_strips_are_fibonacci_and_a_recurrence():
+    from frostline.domino.counts import rectangle_count
+
+    # 2 x n: Fibonacci numbers F(n+1) (common practice; OEIS A000045)
+    fib = [1, 1]
+    for _ in range(400):
+        fib.append(fib[-1] + fib[-2])
+    assert [rectangle_count(2, n) for n in range(1, 400)] == fib[1:400]
+    # 3 x 2n: a(n) = 4 a(n-1) - a(n-2), 1, 3, 11, 41, 153 (OEIS A001835)
+    a = [1, 3]
+    for _ in range(200):
+        a.append(4 * a[-1] - a[-2])
+    assert [rectangle_count(3, 2 * n) for n in range(0, 200)] == a[:200]
+    assert rectangle_count(3, 7) == 0 and rectangle_count(0, 5) == 1
+
+
 def sympy_kasteleyn_det(mask):
     # Built here independently: black cells x white cells, -1 on vertical pairs in odd columns.
     cells = [tuple(p) for p in np.argwhere(mask).tolist()]

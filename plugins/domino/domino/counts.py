@@ -21,35 +21,26 @@ def aztec_count(n: int) -> int:
 
 
 def rectangle_count(m: int, n: int, *, budget: Optional[float] = None, max_digits: Optional[int] = None) -> int:
-    """Domino tilings of an m x n rectangle by the Kasteleyn / Temperley-Fisher product (1961).
+    """Domino tilings of an m x n rectangle, exactly, from the Kasteleyn / Temperley-Fisher product (1961)
+    written as a resultant of two integer polynomials (:mod:`frostline.domino.rectangle_count`).
 
-    prod_{j <= ceil(m/2)} prod_{k <= ceil(n/2)} (4 cos^2(pi j/(m+1)) + 4 cos^2(pi k/(n+1))),
-    evaluated with enough digits (mpmath) that rounding to the nearest integer is exact.
     Refuses (ValueError, with the estimate) more than ``max_digits`` digits or
     an estimated time above ``budget`` seconds (None: no cap).
     """
-    from frostline.exact.budget import check_budget_argument, check_digits, check_seconds, product_seconds
+    from frostline.exact.budget import check_budget_argument, check_digits, check_seconds
+
+    from .rectangle_count import rectangle_count as exact_count
+    from .rectangle_count import resultant_seconds
 
     budget = check_budget_argument(budget)
     if m * n % 2:
         return 0
     if m == 0 or n == 0:
         return 1
-    digits = int(0.13 * m * n) + 30  # entropy per cell G/pi = 0.2916 nats = 0.1266 digits
-    check_digits(0.1266 * m * n, max_digits, f"the count of the {m}x{n} rectangle")
-    terms = ((m + 1) // 2) * ((n + 1) // 2)
-    check_seconds(product_seconds(terms, digits * 3.33), budget, f"the count of the {m}x{n} rectangle",
-                  f"{terms} products at {digits} digits")
-    import mpmath
-
-    with mpmath.workdps(digits):
-        cj = [4 * mpmath.cos(mpmath.pi * j / (m + 1)) ** 2 for j in range(1, (m + 1) // 2 + 1)]
-        ck = [4 * mpmath.cos(mpmath.pi * k / (n + 1)) ** 2 for k in range(1, (n + 1) // 2 + 1)]
-        value = mpmath.mpf(1)
-        for x in cj:
-            for y in ck:
-                value *= x + y
-        return int(mpmath.nint(value))
+    check_digits(0.1266 * m * n, max_digits, f"the count of the {m}x{n} rectangle")  # G/pi nats per cell
+    check_seconds(resultant_seconds(m, n), budget, f"the count of the {m}x{n} rectangle",
+                  f"a resultant of degrees {(min(m, n) + 1) // 2} and {(max(m, n) + 1) // 2}")
+    return exact_count(m, n)
 
 
 def kasteleyn_matrix(mask: np.ndarray, horizontal=None, vertical=None) -> np.ndarray:
