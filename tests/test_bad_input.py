@@ -89,3 +89,10 @@ def test_bad_picture_format(tmp_path):
     S = fl.lozenge.hexagon(2, 2, 2).sample(seed=0)
     with pytest.raises(ValueError, match="format"):
         fl.plot.save(S, tmp_path / "picture.bmp")
+
+
+def test_progress_must_be_callable():
+    import frostline as fl
+
+    with pytest.raises(TypeError, match="progress must be None or a callable"):
+        fl.square_ice.domain_wall(3).sample(seed=0, progress=True)

@@ -286,6 +286,9 @@ class Region(abc.ABC):
         threads = _check_count(threads, "threads")
         if not 1 <= threads <= 1024:
             raise ValueError(f"threads must be between 1 and 1024, got {threads}")
+        if progress is not None and not callable(progress):
+            raise TypeError(f"progress must be None or a callable(start_time, site_updates, seconds), "
+                            f"got {type(progress).__name__}")
         name, chosen = resolve(self.exact_methods(), method, self.auto_method(), "exact methods",
                                self.unavailable_methods())
         if chosen.family == "cftp":
