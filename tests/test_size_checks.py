@@ -59,3 +59,12 @@ def test_ensembles_spawn_the_same_children_as_seedsequence():
 def test_tiny_density_bins_are_refused():
     sample = fl.lozenge.hexagon(6, 6, 6).sample(seed=1)
     _refused_fast(lambda: fl.analysis.density_grid([sample], bin_size=1e-4))
+
+
+def test_a_text_picture_is_sized_by_its_bounding_box():
+    # 100 000 short lines and one long one: 2e5 characters of text, a 1e10-cell bounding box
+    text = "##\n" * 100_000 + "#" * 100_000
+    with pytest.raises(RegionTooLargeError, match="100001x100000 picture"):
+        fl.domino.from_picture(text)
+    with pytest.raises(ValueError, match="unexpected symbol '\\?' in row 1, column 2"):
+        fl.domino.from_picture("##\n..?#\n")

@@ -98,12 +98,16 @@ def from_picture(picture: str, **weights: Any) -> DominoRegion:
     if not lines:
         raise ValueError("the picture is empty: draw cells with '#'")
     width = max(len(line) for line in lines)
+    # the bounding box, not the text, sets the size: one long line among many short ones is a big region
+    check_memory(region_bytes(len(lines), width, len(lines) * width,
+                              any(w is not None for w in weights.values())),
+                 f"the {len(lines)}x{width} picture")
     mask = np.zeros((len(lines), width), bool)
     for r, line in enumerate(lines):
-        for c, ch in enumerate(line):
-            if ch in FILLED:
-                mask[r, c] = True
-            elif ch not in EMPTY:
-                raise ValueError(f"unexpected symbol {ch!r} in row {r}, column {c} of the picture; "
-                                 f"use '#' for a cell and '.' for none")
+        bad = set(line) - set(FILLED) - set(EMPTY)
+        if bad:
+            c = min(line.index(ch) for ch in bad)
+            raise ValueError(f"unexpected symbol {line[c]!r} in row {r}, column {c} of the picture; "
+                             f"use '#' for a cell and '.' for none")
+        mask[r, :len(line)] = [ch in FILLED for ch in line]
     return DominoRegion(mask, weights.get("horizontal"), weights.get("vertical"), description={"shape": "picture"})
