@@ -110,3 +110,15 @@ def test_widely_spread_weights_stay_finite():
     v = 10.0 ** rng.choice([-8, 0, 8], (2 * n - 1, 2 * n))
     tiles, p = fl.domino.aztec_diamond(n, horizontal=h, vertical=v).placement_probabilities(tolerance=1e-9)
     assert p.min() >= 0 and p.max() <= 1
+
+
+def test_long_density_computations_report_progress():
+    from frostline.progress import exact_progress
+
+    calls = []
+    with exact_progress(lambda stage, done, total: calls.append((stage, done, total))):
+        fl.exact.placement_probabilities(fl.domino.aztec_diamond(12))
+        fl.exact.placement_probabilities(fl.lozenge.hexagon_region(3, 3, 3))
+    aztec = [c for c in calls if c[0].startswith("Aztec diamond edge")]
+    assert [done for _, done, _ in aztec] == list(range(1, 12)) and {t for *_, t in aztec} == {12}
+    assert [done for stage, done, _ in calls if "inverse Kasteleyn" in stage] == [0, 1, 2]

@@ -399,10 +399,16 @@ def _density(args) -> int:
     _check_outputs(args.picture, None)
     region = _region(args)
     started = time.perf_counter()
-    print(f"  exact placement probabilities of {region.summary()} (inverse Kasteleyn matrix)...", end="",
-          file=sys.stderr, flush=True)
-    tiles, probabilities = placement_probabilities(region)
-    print(f" {time.perf_counter() - started:.1f} s", file=sys.stderr)
+    print(f"  exact placement probabilities of {region.summary()}", file=sys.stderr, flush=True)
+    from .progress import StderrProgress, exact_progress
+
+    progress = StderrProgress("exact densities")
+    try:
+        with exact_progress(progress.exact):
+            tiles, probabilities = placement_probabilities(region)
+    finally:
+        progress.finish()
+    print(f"  done in {time.perf_counter() - started:.1f} s", file=sys.stderr)
     classes = region.classify(tiles)
     names = region.tile_classes
     densities = {name: (region.tile_centres(tiles[classes == k]), probabilities[classes == k])

@@ -30,6 +30,7 @@ from typing import Any, Optional, Tuple
 import numpy as np
 
 from frostline._limits import check_memory
+from frostline.progress import report
 
 
 def face_weights(n: int, horizontal: Optional[np.ndarray], vertical: Optional[np.ndarray], dtype: Any = float):
@@ -60,6 +61,7 @@ def horizontal_ratios(n: int, horizontal: Optional[np.ndarray], vertical: Option
         t, r, b, l = np.log(t), np.log(r), np.log(b), np.log(l)
     ratios = [None] * (n + 1)
     for k in range(n, 0, -1):
+        report("Aztec diamond face weights, orders done", n - k, n)
         if logs:
             d = np.logaddexp(t + b, l + r)
             ratios[k] = np.exp(t + b - d)
@@ -86,6 +88,7 @@ def edge_probabilities(n: int, ratio) -> Tuple[np.ndarray, np.ndarray, np.ndarra
     c = ratio(1)
     top, right, bottom, left = c, 1 - c, c, 1 - c
     for k in range(2, n + 1):
+        report("Aztec diamond edge probabilities, orders done", k - 1, n)
         zero = np.zeros((k, k), dtype=np.asarray(top).dtype)
         a_top, a_right, a_bottom, a_left = zero.copy(), zero.copy(), zero.copy(), zero.copy()
         a_top[1:, :-1] = top          # the top edge of order k - 1 face (u - 1, v)

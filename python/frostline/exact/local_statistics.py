@@ -19,6 +19,7 @@ from typing import Any, Dict, Tuple
 import numpy as np
 
 from .._limits import check_memory
+from ..progress import report
 from .certified import CertifiedLog, certified_log_abs_det
 
 
@@ -45,8 +46,12 @@ def kasteleyn_placement_probabilities(region: Any, tolerance: float = 1e-6) -> T
     check_memory(48 * n * n + 10**6, f"the inverse of a {n}x{n} Kasteleyn matrix")
     if k.shape[0] != k.shape[1]:
         raise ValueError("the Kasteleyn matrix must be square (equal numbers of the two colours)")
+    stage = f"the {n}x{n} inverse Kasteleyn matrix, steps done"  # LAPACK gives no finer progress
+    report(stage, 0, 3)
     inverse = np.linalg.inv(k)
+    report(stage, 1, 3)
     inverse = inverse + inverse @ (np.eye(n) - k @ inverse)  # one Newton step
+    report(stage, 2, 3)
     rows, cols = system["rows"], system["cols"]
     p = np.abs(k[rows, cols] * inverse[cols, rows])
     worst = max(_worst_sum(rows, p, n), _worst_sum(cols, p, n))
