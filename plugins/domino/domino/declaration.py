@@ -27,6 +27,11 @@ def _deprecated_picture(file: Path):
     return from_picture(Path(file).read_text())
 
 
+COLOURING = Argument("colouring", "picture tones: 'classes' (north, south, east, west) or 'faces' (each class "
+                     "split by face parity; the default with --two-periodic, where it shows the gas phase)",
+                     type=str, flag="--colouring", choices=("classes", "faces"), style="colouring")
+
+
 LATTICE = LatticeSpec(
     name="domino",
     summary="domino tilings of the square grid (Aztec diamonds, rectangles, any region)",
@@ -36,10 +41,11 @@ LATTICE = LatticeSpec(
                Argument("vertical_weight", "weight of every vertical domino", type=float, flag="--vertical-weight",
                         exclusive="weights"),
                Argument("two_periodic", "two-periodic weights A and B (gas phase in the middle when A != B)",
-                        type=float, nargs=2, metavar=("A", "B"), flag="--two-periodic", exclusive="weights")),
+                        type=float, nargs=2, metavar=("A", "B"), flag="--two-periodic", exclusive="weights"),
+               COLOURING),
               "Domino tilings of the Aztec diamond of order N (2N(N+1) cells).", methods=("shuffling",)),
         Shape("rectangle", "domino tilings of a ROWS x COLUMNS rectangle", rectangle,
-              (Argument("rows", "number of rows"), Argument("columns", "number of columns"))),
+              (Argument("rows", "number of rows"), Argument("columns", "number of columns"), COLOURING)),
         Shape("mask", "domino tilings of a region drawn in a text file",
               lambda file: from_picture(Path(file).read_text()),
               (Argument("file", "the text file with the drawing", type=Path),),

@@ -543,11 +543,26 @@ class DominoRegion(VariationalRegion, Region):
 
         return self.count() if self.weights is None else weighted_partition_function(self)
 
-    def draw(self, sample: Sample, ax: Any = None, **style: Any) -> Any:
-        from .drawing import draw_dominoes
+    def draw(self, sample: Sample, ax: Any = None, colouring: Optional[str] = None, **style: Any) -> Any:
+        """Draw the tiling; ``colouring`` "classes" (north, south, east, west) or "faces" (each class split
+        by face parity, eight tones: the gas phase of two-periodic weights shows). Default: "faces" for
+        two-periodic weights, else "classes"."""
+        from frostline.toolkit import palette
 
+        from .drawing import draw_dominoes
+        from .weights import face_parity
+
+        if colouring is None:
+            colouring = "faces" if "two_periodic_weights" in self._description else "classes"
+        if colouring not in ("classes", "faces"):
+            raise ValueError(f"colouring must be 'classes' or 'faces', got {colouring!r}")
+        classes = self.classify(sample.tiles)
+        if colouring == "faces":
+            classes = classes + 4 * face_parity(sample.tiles)
+            style.setdefault("tones", palette.DOMINO_CLASSES_BY_FACE)
+            style.setdefault("key", [f"{name}, {kind} face" for kind in ("even", "odd") for name in self.tile_classes])
         style.setdefault("key", self.tile_classes)       # north, south, east, west beside the picture
-        return draw_dominoes(sample.tiles, self.classify(sample.tiles), ax=ax, **style)
+        return draw_dominoes(sample.tiles, classes, ax=ax, **style)
 
     def __repr__(self) -> str:
         shape = {k: v for k, v in self._description.items()}

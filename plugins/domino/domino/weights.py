@@ -68,6 +68,18 @@ def two_periodic(shape: Tuple[int, int], a: float, b: float) -> Weights:
     return horizontal.astype(float), vertical.astype(float)
 
 
+def face_parity(tiles: np.ndarray) -> np.ndarray:
+    """0 or 1 per domino: the row parity of the corner with even r + c at an end of the edge it covers.
+
+    This is the face of :func:`two_periodic`: 0 where those weights give ``a``, 1 where they give ``b``.
+    """
+    t = np.asarray(tiles, dtype=np.int64).reshape(-1, 2, 2)
+    r, c = t[:, :, 0].min(axis=1), t[:, :, 1].min(axis=1)
+    horizontal = t[:, 0, 0] == t[:, 1, 0]
+    corner_row = np.where(horizontal, np.where((r + c + 1) % 2 == 0, r, r + 1), r + 1)
+    return (corner_row % 2).astype(np.int8)
+
+
 def _positive(x, name: str) -> float:
     if isinstance(x, bool) or not isinstance(x, numbers.Real):
         raise TypeError(f"{name} must be a real number, got {type(x).__name__}")

@@ -15,6 +15,9 @@ LOZENGE_INK = "#2b1d17"
 
 #: domino classes north, south, east, west: two warm tones for horizontal, two cool for vertical
 DOMINO_CLASSES = ("#d9a441", "#8c4a2f", "#3f6e8c", "#9cc3c9")
+#: the same four classes split by face parity (the two face kinds of two-periodic weights, which show the
+#: gas phase): even faces in the tones above, odd faces in a partner tone of each
+DOMINO_CLASSES_BY_FACE = DOMINO_CLASSES + ("#f8d298", "#c94000", "#24a3de", "#818889")
 #: outlines of small domino pictures
 DOMINO_INK = "#1f1a17"
 
@@ -30,5 +33,6 @@ PREDICTED = "#e8c547"
 #: up to four series on a white background (examples, comparisons across a parameter)
 SERIES = ("#3c272c", "#47a2d0", "#d7a348", "#4136a8")
 
-PALETTES = {"lozenge faces": LOZENGE_FACES, "domino classes": DOMINO_CLASSES, "ice vertex types": ICE_VERTEX_TYPES,
+PALETTES = {"lozenge faces": LOZENGE_FACES, "domino classes": DOMINO_CLASSES,
+            "domino classes by face": DOMINO_CLASSES_BY_FACE, "ice vertex types": ICE_VERTEX_TYPES,
             "curves": (MEASURED, THEORY, PREDICTED), "series": SERIES}
