@@ -32,6 +32,14 @@ def test_count(capsys):
 def test_demo_small(tmp_path, capsys):
     assert main(["demo", "--size", "6", "--folder", str(tmp_path)]) == 0
     assert (tmp_path / "hexagon-uniform.png").exists() and (tmp_path / "hexagon-weighted.png").exists()
+    out = capsys.readouterr().out
+    # one aligned table per sample: the volume and picture rows start their values in the table's column
+    for block in out.strip().split("\n\n"):
+        rows = [line for line in block.splitlines()[1:] if line.startswith("  ")]
+        starts = {len(line) - len(line[2:].split("  ", 1)[1].lstrip()) for line in rows if "  " in line[2:]}
+        assert len(starts) == 1, block
+        assert any(line.split()[0] == "picture" for line in rows)
+    assert out.count("uniform limit shape: half the box") == 1  # only the uniform box says so
 
 
 @pytest.mark.parametrize("argv", [["sample", "hexagon", "-1", "2", "2"], ["sample", "hexagon", "2", "2", "2", "--q", "-1"],
@@ -220,3 +228,22 @@ def test_ensemble_reducers_and_statistics_file(tmp_path, capsys, monkeypatch):
     assert main(argv[:-4] + ["--reducer", "types=study_reducers:missing"]) == 2
     assert "cannot find missing" in capsys.readouterr().err
     assert main(argv[:-4] + ["--reducer", "no-separator"]) == 2
+
+
+def test_every_option_of_every_command_has_help():
+    import argparse
+
+    from frostline.cli import _parser
+
+    missing = []
+
+    def walk(parser, path):
+        for action in parser._actions:
+            if isinstance(action, argparse._SubParsersAction):
+                for name, sub in action.choices.items():
+                    walk(sub, path + [name])
+            elif not action.help and not isinstance(action, argparse._HelpAction):
+                missing.append(" ".join(path + [action.option_strings[0] if action.option_strings else action.dest]))
+
+    walk(_parser(), ["frostline"])
+    assert missing == []

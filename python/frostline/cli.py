@@ -188,7 +188,8 @@ def _parser() -> argparse.ArgumentParser:
     return parser
 
 
-def _print_info(sample, out=None) -> None:
+def _print_info(sample, out=None, extra: Sequence[Tuple[str, Any]] = ()) -> None:
+    """The sample's region, method, report and seed as an aligned table; ``extra`` (label, value) rows last."""
     out = out or sys.stdout
     info = sample.info.as_dict()
     region = sample.region.describe()
@@ -201,6 +202,7 @@ def _print_info(sample, out=None) -> None:
     updates = info["report"].get("site_updates", 0)
     if updates and info["seconds"] > 0:
         rows.append(("site updates per second", f"{updates / info['seconds']:.3g}"))
+    rows += list(extra)
     width = max(len(k) for k, _ in rows)
     for k, v in rows:
         if isinstance(v, float):
@@ -496,11 +498,8 @@ def _demo(args) -> int:
         for label, region, title, note in spec.demo(args.size, args.q):
             print(f"\n{label}: {region.summary()}")
             sample = region.sample(seed=args.seed)
-            _print_info(sample)
-            if note is not None:
-                print(f"  {note(sample)}")
             path = plot.save(sample, args.folder / f"{label}.png", title=title)
-            print(f"  picture         {path}")
+            _print_info(sample, extra=([note(sample)] if note is not None else []) + [("picture", path)])
     return 0
 
 

@@ -103,7 +103,8 @@ class LatticeSpec:
         against theory at size n.
     demo : callable(size, q) -> list of (label, Region, title, note), optional
         Regions that ``frostline demo`` samples and draws; ``note(sample)``
-        (or None) is one more line to print about each sample.
+        (or None) gives one more (label, value) row of the sample's table, for
+        a figure that applies to that region (for example its volume).
     """
 
     name: str

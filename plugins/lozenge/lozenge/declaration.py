@@ -25,11 +25,11 @@ def _path(path: Optional[str] = None, file: Optional[Path] = None, q: float = 1.
 def _demo(size: int, q: Optional[float]):
     q = q if q is not None else math.exp(-2.0 / max(size, 1))
 
-    def volume(sample) -> str:
-        return f"volume (cubes)  {int(sample.heights.sum())} of {size ** 3} (uniform limit shape: half the box)"
+    def volume(sample) -> tuple:
+        return "volume (cubes)", f"{int(sample.heights.sum())} of {size ** 3} (uniform limit shape: half the box)"
 
-    def weighted_volume(sample) -> str:
-        return f"volume (cubes)  {int(sample.heights.sum())} of {size ** 3}"
+    def weighted_volume(sample) -> tuple:
+        return "volume (cubes)", f"{int(sample.heights.sum())} of {size ** 3}"
 
     return [("hexagon-uniform", hexagon(size, size, size), f"uniform, {size}x{size}x{size}", volume),
             ("hexagon-weighted", hexagon(size, size, size, q=q), f"weighted, {size}x{size}x{size}, q = {q:.4g}",
