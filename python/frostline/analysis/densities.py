@@ -2,7 +2,7 @@
 from __future__ import annotations
 
 from dataclasses import dataclass
-from typing import Any, Callable, Dict, Sequence, Tuple, Union
+from typing import Any, Callable, Dict, Iterator, Sequence, Tuple, Union
 
 import numpy as np
 
@@ -18,6 +18,20 @@ def _as_list(samples: Samples) -> list:
     if not out:
         raise ValueError("need at least one sample")
     return out
+
+
+def each_sample(samples: Samples) -> Iterator[Any]:
+    """The samples one at a time, holding none of them: one Sample, a list, an ensemble (members read from
+    its store as they are needed) or any iterable. Raises ValueError when there is none."""
+    if hasattr(samples, "tiles"):
+        yield samples
+        return
+    empty = True
+    for sample in samples:
+        empty = False
+        yield sample
+    if empty:
+        raise ValueError("need at least one sample")
 
 
 def _centres_and_classes(sample) -> Tuple[np.ndarray, np.ndarray]:

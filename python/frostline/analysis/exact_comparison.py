@@ -44,27 +44,31 @@ def _keys(tiles: np.ndarray) -> list:
 def compare_with_exact(samples: Sequence[Any], tolerance: float = 1e-6) -> ExactComparison:
     """z-scores of the samples' tile frequencies against exact placement probabilities.
 
-    ``samples``: exact samples of one region (a list of :class:`frostline.Sample`).
-    Raises ValueError for an empty list, samples of different regions, or a
-    region without exact placement probabilities.
+    ``samples``: exact samples of one region (a list of :class:`frostline.Sample`,
+    an ensemble, or any iterable: they are read one at a time, so an
+    ensemble's store is streamed). Raises ValueError for no samples, samples
+    of different regions, or a region without exact placement probabilities.
     """
     from ..exact import placement_probabilities
+    from .densities import each_sample
 
-    samples = list(samples)
-    if not samples:
-        raise ValueError("compare_with_exact needs at least one sample")
-    region = samples[0].region
-    if any(s.region is not region for s in samples[1:]):
-        raise ValueError("all samples must be of one region object (draw them with region.samples(k))")
-    tiles, p = placement_probabilities(region, tolerance)
-    index = {key: i for i, key in enumerate(_keys(tiles))}
-    counts = np.zeros(len(tiles))
-    for sample in samples:
+    region = None
+    k = 0
+    for sample in each_sample(samples):
+        if region is None:
+            region = sample.region
+            tiles, p = placement_probabilities(region, tolerance)
+            index = {key: i for i, key in enumerate(_keys(tiles))}
+            counts = np.zeros(len(tiles))
+        elif sample.region is not region:
+            raise ValueError("all samples must be of one region object (draw them with region.samples(k))")
+        k += 1
         rows = [index.get(key, -1) for key in _keys(sample.tiles)]
         if min(rows, default=0) < 0:
             raise ValueError("a sample holds a tile position the region's Kasteleyn matrix does not have")
         counts[rows] += 1
-    k = len(samples)
+    if region is None:
+        raise ValueError("compare_with_exact needs at least one sample")
     f = counts / k
     spread = np.sqrt(np.clip(p * (1 - p), 0, None) / k)
     with np.errstate(divide="ignore", invalid="ignore"):

@@ -19,7 +19,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass
-from typing import Mapping, Optional, Sequence, Tuple
+from typing import Any, Mapping, Optional, Tuple
 
 import numpy as np
 
@@ -43,25 +43,27 @@ class Fluctuations:
     predicted_slope: float = TWO_POINT_SLOPE
 
 
-def _fields(samples: Sequence) -> np.ndarray:
-    stack = np.stack([np.asarray(s.height_field(), dtype=float) for s in samples])
-    if len(stack) < 3:
+def _columns(samples: Any, points: Any) -> Tuple[Tuple[int, ...], np.ndarray]:
+    """(field shape, heights (k, m) at the m points ``points(field)`` chooses from the first sample's field).
+
+    The samples are read one at a time and only the m heights of each are
+    kept, so an ensemble's store is streamed whatever the region's size.
+    """
+    from .densities import each_sample
+
+    rows, chosen, shape = [], None, ()
+    for sample in each_sample(samples):
+        field = np.asarray(sample.height_field(), dtype=float)
+        if chosen is None:
+            shape, chosen = field.shape, points(field)
+            index = tuple(np.array(axis) for axis in zip(*chosen)) if chosen else None
+        elif field.shape != shape:
+            raise ValueError(f"the samples' height fields differ in shape ({field.shape} vs {shape}): "
+                             "use samples of one region")
+        rows.append(field[index] if index is not None else np.zeros(0))
+    if len(rows) < 3:
         raise ValueError("height fluctuations need at least three samples")
-    return stack
-
-
-def _column(stack: np.ndarray, point: Sequence[int]) -> np.ndarray:
-    """The heights at one point of the field, across the samples."""
-    return stack[(slice(None),) + tuple(int(v) for v in point)]
-
-
-def _two_point(stack: np.ndarray, centre: Tuple[int, ...], offsets: Sequence[Sequence[Tuple[int, ...]]]) -> np.ndarray:
-    here = _column(stack, centre)
-    out = []
-    for pair in offsets:
-        values = [np.var(_column(stack, p) - here, ddof=1) for p in pair]
-        out.append(float(np.mean(values)))
-    return np.array(out)
+    return shape, np.array(rows)
 
 
 def _slope(distances: np.ndarray, variances: np.ndarray) -> float:
@@ -73,7 +75,7 @@ def _slope(distances: np.ndarray, variances: np.ndarray) -> float:
     return float(np.polyfit(x, variances[use], 1)[0])
 
 
-def height_fluctuations(samples: Sequence, centre: Optional[Tuple[int, ...]] = None,
+def height_fluctuations(samples: Any, centre: Optional[Tuple[int, ...]] = None,
                         direction: Tuple[int, ...] = (0, 1), bootstrap: int = 200,
                         seed: int = 0) -> Fluctuations:
     """Pointwise variance at ``centre`` and two-point variances along ``direction``.
@@ -81,41 +83,56 @@ def height_fluctuations(samples: Sequence, centre: Optional[Tuple[int, ...]] = N
     ``centre`` (array indices of the height field) defaults to the middle of
     the array; distances are 1, 2, 4, 8, ... array steps while both
     ``centre +- d * direction`` stay inside the region. Bootstrap: ``bootstrap``
-    resamplings of the samples with a fixed ``seed``.
+    resamplings of the samples with a fixed ``seed``. ``samples``: a list, an
+    ensemble (its store streamed: only the heights at those points are kept)
+    or any iterable of samples of one region.
     """
-    stack = _fields(samples)
-    shape = stack.shape[1:]
-    centre = tuple(int(v) // 2 for v in shape) if centre is None else tuple(int(v) for v in centre)
-    if len(centre) != len(shape) or any(not 0 <= c < n for c, n in zip(centre, shape)):
-        raise ValueError(f"centre {centre} is not an index of the {shape} height field")
-    if np.isnan(_column(stack, centre)[0]):
-        raise ValueError(f"centre {centre} lies outside the region")
     step = np.asarray(direction, dtype=int)
-    distances, offsets = [], []
-    d = 1
-    while True:
-        pair = [tuple(np.asarray(centre) + sign * d * step) for sign in (1, -1)]
-        if not all(all(0 <= c < n for c, n in zip(p, shape)) and not np.isnan(_column(stack, p)[0]) for p in pair):
-            break
-        distances.append(d)
-        offsets.append(pair)
-        d *= 2
-    distances_a = np.array(distances, dtype=float)
-    pointwise = float(np.var(_column(stack, centre), ddof=1))
-    two_point = _two_point(stack, centre, offsets)
+    plan: dict = {}
+
+    def points(field: np.ndarray) -> list:
+        shape = field.shape
+        c = tuple(int(v) // 2 for v in shape) if centre is None else tuple(int(v) for v in centre)
+        if len(c) != len(shape) or any(not 0 <= x < n for x, n in zip(c, shape)):
+            raise ValueError(f"centre {c} is not an index of the {shape} height field")
+        if np.isnan(field[c]):
+            raise ValueError(f"centre {c} lies outside the region")
+        distances, pairs = [], []
+        d = 1
+        while True:
+            pair = [tuple(int(v) for v in np.asarray(c) + sign * d * step) for sign in (1, -1)]
+            if not all(all(0 <= x < n for x, n in zip(q, shape)) and not np.isnan(field[q]) for q in pair):
+                break
+            distances.append(d)
+            pairs.append(pair)
+            d *= 2
+        plan.update(centre=c, distances=distances)
+        return [c] + [q for pair in pairs for q in pair]
+
+    _, values = _columns(samples, points)
+    c = plan["centre"]
+    distances_a = np.array(plan["distances"], dtype=float)
+
+    def two_point(v: np.ndarray) -> np.ndarray:
+        here = v[:, 0]
+        return np.array([np.mean([np.var(v[:, 1 + 2 * j + side] - here, ddof=1) for side in (0, 1)])
+                         for j in range(len(distances_a))])
+
+    pointwise = float(np.var(values[:, 0], ddof=1))
+    two = two_point(values)
     rng = np.random.default_rng(seed)
     boot_point, boot_two, boot_slope = [], [], []
     for _ in range(bootstrap):
-        pick = stack[rng.integers(0, len(stack), size=len(stack))]
-        boot_point.append(np.var(_column(pick, centre), ddof=1))
-        values = _two_point(pick, centre, offsets)
-        boot_two.append(values)
-        boot_slope.append(_slope(distances_a, values))
-    two_error = np.std(np.array(boot_two), axis=0, ddof=1) if offsets else np.zeros(0)
-    return Fluctuations(centre=centre, samples=len(stack), pointwise_variance=pointwise,
+        pick = values[rng.integers(0, len(values), size=len(values))]
+        boot_point.append(np.var(pick[:, 0], ddof=1))
+        resampled = two_point(pick)
+        boot_two.append(resampled)
+        boot_slope.append(_slope(distances_a, resampled))
+    two_error = np.std(np.array(boot_two), axis=0, ddof=1) if len(distances_a) else np.zeros(0)
+    return Fluctuations(centre=c, samples=len(values), pointwise_variance=pointwise,
                         pointwise_error=float(np.std(boot_point, ddof=1)), distances=distances_a,
-                        two_point_variance=two_point, two_point_error=two_error,
-                        slope=_slope(distances_a, two_point), slope_error=float(np.nanstd(boot_slope, ddof=1)))
+                        two_point_variance=two, two_point_error=two_error,
+                        slope=_slope(distances_a, two), slope_error=float(np.nanstd(boot_slope, ddof=1)))
 
 
 def variance_growth(variances: Mapping[int, float], corrections: int = 2) -> Tuple[float, np.ndarray]:

@@ -36,7 +36,7 @@ from typing import Optional, Sequence, Tuple
 
 import numpy as np
 
-from .densities import Samples, _as_list
+from .densities import Samples, each_sample
 from .tracy_widom import tracy_widom_cdf, tracy_widom_moments
 
 
@@ -123,7 +123,6 @@ def frozen_positions(samples: Samples, start: Sequence[float], direction: Sequen
     censored (NaN; see :attr:`FrozenPositions.censored`). Raises ValueError
     when no tile lies on the line.
     """
-    samples = _as_list(samples)
     p0 = np.asarray(start, dtype=float)
     d = np.asarray(direction, dtype=float)
     if p0.shape != (2,) or d.shape != (2,) or not np.hypot(*d) > 0:
@@ -132,13 +131,15 @@ def frozen_positions(samples: Samples, start: Sequence[float], direction: Sequen
         raise ValueError("width must be positive")
     d = d / np.hypot(*d)
     normal = np.array([-d[1], d[0]])
-    region = samples[0].region
-    names = region.tile_classes
-    if frozen_class is not None and frozen_class not in names:
-        raise ValueError(f"frozen_class must be one of {', '.join(names)}, got {frozen_class!r}")
     positions = []
     chosen = frozen_class
-    for sample in samples:
+    region = None
+    for sample in each_sample(samples):   # streamed: an ensemble's members are read one at a time
+        if region is None:
+            region = sample.region
+            names = region.tile_classes
+            if frozen_class is not None and frozen_class not in names:
+                raise ValueError(f"frozen_class must be one of {', '.join(names)}, got {frozen_class!r}")
         centres = region.tile_centres(sample.tiles)
         classes = np.asarray(region.classify(sample.tiles))
         rel = centres - p0
@@ -155,7 +156,7 @@ def frozen_positions(samples: Samples, start: Sequence[float], direction: Sequen
             positions.append(float("nan"))       # no crossing on this line: censored
         else:
             positions.append(t[other[0] - 1] if other[0] > 0 else 0.0)
-    return FrozenPositions(np.array(positions), str(chosen), float(region.scale))
+    return FrozenPositions(np.array(positions), str(chosen), float(region.scale))  # type: ignore[union-attr]
 
 
 def crossing(curves: Sequence[np.ndarray], start: Sequence[float], direction: Sequence[float]) -> Tuple[float, bool]:
