@@ -104,6 +104,13 @@ class HexagonRegion(LozengeTiles, VariationalRegion, Region):
     def kasteleyn_real(self) -> np.ndarray:
         return self._general().kasteleyn_real()
 
+    def exact_mean_heights(self, tolerance: float = 1e-6) -> np.ndarray:
+        """The exact expected plane partition (float (a, b), the layout of ``heights``; uniform or q ** volume),
+        from the law of a count of cube tops along a line (:mod:`frostline.lozenge.box_mean_heights`)."""
+        from .box_mean_heights import box_mean_heights
+
+        return box_mean_heights(self, tolerance)
+
     def height_field(self, heights: np.ndarray) -> np.ndarray:
         """The number-of-cubes height on the lattice points of the hexagon (the layout of
         ``hexagon_region(a, b, c)``), from the plane partition: a different object from ``heights``."""

@@ -40,6 +40,13 @@ def placement_probabilities(region: Any, tolerance: float = 1e-6) -> Tuple[np.nd
 
 def kasteleyn_placement_probabilities(region: Any, tolerance: float = 1e-6) -> Tuple[np.ndarray, np.ndarray]:
     """:func:`placement_probabilities` from the inverse Kasteleyn matrix, refined and checked (Kenyon 1997)."""
+    system, _, p = kasteleyn_inverse(region, tolerance)
+    return system["tiles"], p
+
+
+def kasteleyn_inverse(region: Any, tolerance: float = 1e-6) -> Tuple[dict, np.ndarray, np.ndarray]:
+    """(dimer system, inverse Kasteleyn matrix, placement probabilities), the inverse refined by one Newton
+    step and checked: the probabilities of the tiles at every vertex sum to 1 within ``tolerance``."""
     system = region.dimer_system()
     k = system["matrix"]
     n = k.shape[0]
@@ -61,7 +68,7 @@ def kasteleyn_placement_probabilities(region: Any, tolerance: float = 1e-6) -> T
             f"(tolerance {tolerance:g}); the {n}x{n} Kasteleyn matrix is too badly conditioned. Use a smaller region "
             "(domino regions of about 5000 cells; Aztec diamonds themselves have an exact recursion at any order) or "
             "estimate densities from exact samples")
-    return system["tiles"], p
+    return system, inverse, p
 
 
 def check_vertex_sums(index: np.ndarray, p: np.ndarray, n: int, tolerance: float, what: str) -> None:
@@ -83,11 +90,13 @@ def mean_heights(region: Any, tolerance: float = 1e-6) -> np.ndarray:
     From the placement probabilities, summed along paths from the boundary
     (the expected change along an edge is linear in the chance that a tile
     crosses it). For plugins whose regions offer ``expected_heights``
-    (general lozenge regions, domino regions); ValueError otherwise.
+    (general lozenge regions, domino regions), or their own ``exact_mean_heights``
+    (box hexagons: the mean plane partition, docs/references.md); ValueError otherwise.
     """
+    if hasattr(region, "exact_mean_heights"):  # heights that are not sums along paths (box plane partitions)
+        return region.exact_mean_heights(tolerance)
     if not hasattr(region, "expected_heights"):
-        raise ValueError(f"{type(region).__name__} has no exact mean heights (no expected_heights); for a box "
-                         "hexagon use the same hexagon as a general region (lozenge.hexagon_region)")
+        raise ValueError(f"{type(region).__name__} has no exact mean heights (no expected_heights)")
     tiles, p = placement_probabilities(region, tolerance)
     return region.expected_heights(tiles, p)
 
