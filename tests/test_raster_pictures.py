@@ -86,3 +86,14 @@ def test_raster_sizes_are_checked(bad):
     tiles = fl.lozenge.hexagon(2, 2, 2).sample(seed=0).tiles
     with pytest.raises(ValueError, match="pixels|oversample"):
         raster_lozenges(tiles, **bad)
+
+
+def test_density_panels_are_titled_in_words(tmp_path, monkeypatch):
+    from matplotlib.axes import Axes
+
+    titles = []
+    real = Axes.set_title
+    monkeypatch.setattr(Axes, "set_title", lambda self, label, *a, **k: (titles.append(label), real(self, label, *a, **k))[1])
+    region = fl.lozenge.hexagon(3, 3, 3)
+    fl.plot.save_densities(fl.exact.class_densities(region), tmp_path / "d.png", labels=region.tile_class_labels)
+    assert titles == ["type 0: cube tops", "type 1: faces along +X", "type 2: faces along -Y"]

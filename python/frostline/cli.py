@@ -416,7 +416,8 @@ def _density(args) -> int:
     densities = {name: (region.tile_centres(tiles[classes == k]), probabilities[classes == k])
                  for k, name in enumerate(names)}
     outlines = {name: region.tile_outlines(tiles[classes == k]) for k, name in enumerate(names)}
-    plot.save_densities(densities, args.picture, title=region.summary(), outlines=outlines)
+    plot.save_densities(densities, args.picture, title=region.summary(), outlines=outlines,
+                        labels=getattr(region, "tile_class_labels", None))
     print(f"exact densities of {region.summary()} written to {args.picture}")
     return 0
 
@@ -438,7 +439,8 @@ def _predict(args) -> int:
     curves = [line * shape.scale for line in shape.frozen_boundary]
     outlines = {name: region.tile_outlines(tiles) for name, tiles in shape.tiles.items()}
     plot.save_densities(shape.densities, args.picture, curves=curves, outlines=outlines,
-                        title=f"predicted densities, {region.summary()}")
+                        title=f"predicted densities, {region.summary()}",
+                        labels=getattr(region, "tile_class_labels", None))
     print(f"predicted densities and frozen boundary written to {args.picture}")
     return 0
 

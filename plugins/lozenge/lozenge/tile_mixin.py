@@ -3,7 +3,7 @@ from __future__ import annotations
 
 import numpy as np
 
-from .drawing import draw_lozenges
+from .drawing import TYPE_NAMES, draw_lozenges
 from .tiles import TILE_CLASSES, lozenge_centres, lozenge_polygons
 
 
@@ -12,6 +12,8 @@ class LozengeTiles:
 
     lattice = "lozenge"
     tile_classes = TILE_CLASSES
+    #: what each class is, for picture titles (``fl.plot.save_densities(labels=...)``)
+    tile_class_labels = dict(zip(TILE_CLASSES, TYPE_NAMES))
 
     def tile_centres(self, tiles: np.ndarray) -> np.ndarray:
         return lozenge_centres(tiles)

@@ -82,7 +82,8 @@ def _tile_icon(ax: Any, corners: np.ndarray) -> None:
 
 
 def save_densities(densities: dict, path: str | os.PathLike[str], *, title: Optional[str] = None, dpi: int = 200,
-                   curves: Optional[list] = None, outlines: Optional[dict] = None) -> str:
+                   curves: Optional[list] = None, outlines: Optional[dict] = None,
+                   labels: Optional[dict] = None) -> str:
     """One panel per tile class: tile centres coloured by their probability (0 to 1).
 
     ``densities`` maps class name to (centres (k, 2), probabilities (k,)), as
@@ -92,6 +93,8 @@ def save_densities(densities: dict, path: str | os.PathLike[str], *, title: Opti
     ``outlines`` ({class: (k, m, 2) tile corners, in the order of the
     densities}) draws every tile position filled, so the map follows the
     lattice and probabilities near 1 stay visible; without it, dots.
+    ``labels`` ({class: panel title}, e.g. a region's ``tile_class_labels``)
+    names the panels in words; classes without one keep their name.
     """
     _check_format(path)
     _check_size(3.8, dpi)
@@ -119,7 +122,7 @@ def save_densities(densities: dict, path: str | os.PathLike[str], *, title: Opti
                                linewidths=0)
         for line in curves or []:
             ax.plot(line[:, 0], line[:, 1], color=palette.PREDICTED, lw=0.8)
-        ax.set_title(name)
+        ax.set_title((labels or {}).get(name, name), fontsize=9)
         ax.set_aspect("equal")
         ax.set_axis_off()
     if image is not None:
