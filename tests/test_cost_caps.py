@@ -15,6 +15,7 @@ import pytest
 
 import frostline as fl
 from frostline.domino.counts import rectangle_count
+from frostline.errors import RegionTooLargeError
 from frostline.lozenge.counts import log_macmahon, macmahon
 from frostline.square_ice.counts import asm_count
 
@@ -145,3 +146,12 @@ def test_long_exact_determinants_report_progress():
     reported = len(seen)
     fl.lozenge.hexagon_region(2, 2, 2).count()
     assert len(seen) == reported
+
+
+def test_a_long_thin_box_counts_under_a_low_memory_limit(monkeypatch):
+    # the box is two short chains; only a sample's 2e8 tiles would need gigabytes, and they are checked then
+    monkeypatch.setenv("FROSTLINE_MEMORY_LIMIT", str(4e9))
+    region = fl.lozenge.hexagon(1, 1, 10**8)
+    assert region.count() == 10**8 + 1
+    with pytest.raises(RegionTooLargeError, match="lozenges of the 1x1x100000000 hexagon"):
+        region.tiles_from_heights(np.zeros((1, 1), np.int32))

@@ -25,6 +25,13 @@ CASES = {
                                  "region_bytes(2000, 2000, 2000 ** 2, True)"),
     "domino engine": ("fl.domino.aztec_diamond(600)._engine()", "450 * 1201 ** 2"),
     "square ice": ("fl.square_ice.domain_wall(900)", "640 * 901 ** 2"),
+    # a long thin box: its tiles, made when a sample's tiles are asked for (the box itself is small)
+    "box tiles": ("R = fl.lozenge.hexagon(1, 1, 10 ** 7); "
+                  "h = np.zeros((1, 1), np.int32); before = high_water(); R.tiles_from_heights(h)",
+                  "box_tile_bytes(1, 1, 10 ** 7)"),
+    "square box tiles": ("R = fl.lozenge.hexagon(1500, 1500, 5); "
+                         "h = np.zeros((1500, 1500), np.int32); before = high_water(); R.tiles_from_heights(h)",
+                         "box_tile_bytes(1500, 1500, 5)"),
     "lozenge region": ("fl.lozenge.hexagon_region(300, 300, 300)", "560 * 6 * 300 ** 2 + 10 ** 6"),
     # the column form's extension check on a zig-zag strip: most of its bounding grid lies outside it
     "column form": ("R = fl.lozenge.from_boundary(ZIGZAG); before = high_water(); R.column_form()",
@@ -47,6 +54,7 @@ def test_estimate_bounds_the_measured_peak(name):
         fl.lozenge.hexagon_region(2, 2, 2)
         import numpy as np
         from frostline.domino.region import region_bytes
+        from frostline.lozenge.hexagon import box_tile_bytes
         MASK = np.ones((2000, 2000), bool)  # the caller's own array, made before the measurement
         before = high_water()
         ZIGZAG = {ZIGZAG}

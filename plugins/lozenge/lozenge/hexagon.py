@@ -20,6 +20,12 @@ from .tile_mixin import LozengeTiles
 from .tiles import hexagon_corners, tiles_of_plane_partition
 
 
+def box_tile_bytes(a: int, b: int, c: int) -> int:
+    """Peak memory (bytes) of the tiles of an a x b x c box's tiling: the (k, 3) int64 rows, their sorted
+    copy and the per-column work arrays (fitted to measured peaks; tests/test_memory_estimates.py)."""
+    return 90 * (a * b + b * c + c * a) + 110 * (a + 1) * (b + 2) + 10**6
+
+
 class HexagonRegion(LozengeTiles, VariationalRegion, Region):
     """Lozenge tilings of the a, b, c hexagon = plane partitions in an a x b x c box.
 
@@ -33,11 +39,10 @@ class HexagonRegion(LozengeTiles, VariationalRegion, Region):
     def __init__(self, a: int, b: int, c: int, q: QLike = 1.0) -> None:
         self.a, self.b, self.c = side_length(a, "a"), side_length(b, "b"), side_length(c, "c")
         self.q, self._q_exact = weight(q)
-        cells = self.a * self.b
-        tiles = self.a * self.b + self.b * self.c + self.c * self.a
-        # two padded chains and the result (int32), tiles (3 x int64), q table
-        estimate = 12 * (self.a + 2) * (self.b + 2) + 24 * tiles + (8 * (self.c + 3) if self.q != 1.0 else 0)
-        check_memory(estimate, f"the {self.a}x{self.b}x{self.c} hexagon ({cells} cells, {tiles} lozenges)")
+        # two padded chains and the result (int32), the q table; a sample's tiles are checked when they are
+        # made (box_tile_bytes), so counts and heights of long thin boxes stay cheap
+        estimate = 12 * (self.a + 2) * (self.b + 2) + (8 * (self.c + 3) if self.q != 1.0 else 0)
+        check_memory(estimate, f"the {self.a}x{self.b}x{self.c} hexagon ({self.a * self.b} cells)")
         self._model: HeightModel | None = None
 
     def __repr__(self) -> str:
@@ -220,7 +225,11 @@ class HexagonRegion(LozengeTiles, VariationalRegion, Region):
 
     def tiles_from_heights(self, heights: np.ndarray) -> np.ndarray:
         """Lozenges (k, 3) of the tiling whose plane partition is ``heights`` (checked: ValueError otherwise)."""
-        return tiles_of_plane_partition(self.check_heights(heights), self.c)
+        heights = self.check_heights(heights)
+        tiles = self.a * self.b + self.b * self.c + self.c * self.a
+        check_memory(box_tile_bytes(self.a, self.b, self.c), f"the {tiles} lozenges of the {self.a}x{self.b}x{self.c} "
+                     "hexagon")
+        return tiles_of_plane_partition(heights, self.c)
 
     def count(self, *, max_digits: Optional[int] = DEFAULT_MAX_DIGITS) -> int:
         """Number of plane partitions in the box, by MacMahon's formula (OEIS A008793).
