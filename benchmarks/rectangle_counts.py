@@ -14,7 +14,7 @@ import time
 
 import mpmath
 
-from frostline.domino.rectangle_count import rectangle_count, resultant_seconds
+from frostline.domino.rectangle_resultant import rectangle_count, resultant_seconds
 
 
 def product(m: int, n: int) -> int:

@@ -68,3 +68,24 @@ def test_exact_means_agree_with_samples():
     error = stack.std(axis=0, ddof=1) / np.sqrt(len(stack))
     exact = fl.exact.mean_heights(region)
     assert (np.abs(stack.mean(axis=0) - exact) <= 5 * error + 1e-9).all()
+
+
+def test_long_runs_are_refused_with_their_estimate_and_closed_forms_hold():
+    from frostline.lozenge.box_mean_heights import mean_volume
+
+    with pytest.raises(ValueError, match="budget=None"):
+        fl.exact.mean_heights(fl.lozenge.hexagon(3, 3, 1000))
+    # the closed-form mean volume against a numerical derivative of the product (MacMahon 1916)
+    a, b, c, q, eps = 4, 5, 3, 0.7, 1e-6
+    derivative = (log_macmahon_q(a, b, c, q * math.exp(eps)) - log_macmahon_q(a, b, c, q * math.exp(-eps))) / (2 * eps)
+    assert mean_volume(a, b, c, q) == pytest.approx(derivative, rel=1e-8)
+    assert mean_volume(a, b, c, 1.0) == a * b * c / 2
+
+
+def test_count_laws_refuse_a_kernel_that_is_not_a_point_process():
+    from frostline.lozenge.box_mean_heights import count_laws
+
+    good = np.diag([0.3, 0.6])
+    assert np.allclose(count_laws(good, 1e-9)[2], [0.7 * 0.4, 0.3 * 0.4 + 0.7 * 0.6, 0.18])
+    with pytest.raises(ValueError, match="floating point cannot"):
+        count_laws(np.diag([0.3, 1.4]), 1e-9)   # a "probability" above 1 makes a negative one

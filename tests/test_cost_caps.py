@@ -155,3 +155,15 @@ def test_a_long_thin_box_counts_under_a_low_memory_limit(monkeypatch):
     assert region.count() == 10**8 + 1
     with pytest.raises(RegionTooLargeError, match="lozenges of the 1x1x100000000 hexagon"):
         region.tiles_from_heights(np.zeros((1, 1), np.int32))
+
+
+def test_rectangle_counts_stay_a_function_and_check_their_input():
+    # the resultant lives in its own module, which must not shadow the public function
+    assert fl.domino.rectangle(4, 4).count() == 36 == fl.domino.rectangle_count(4, 4) == fl.domino.rectangle_count(4, 4)
+    with pytest.raises(ValueError, match="non-negative"):
+        fl.domino.rectangle_count(-2, 4)
+    with pytest.raises(TypeError, match="must be an int"):
+        fl.domino.rectangle_count(2.5, 4)
+    # thin strips cost about the square of m n: 4 x 2e6 (36 s measured) is refused under a 10 s budget
+    with pytest.raises(ValueError, match="budget"):
+        _quick(lambda: rectangle_count(4, 2 * 10**6, budget=10), 2.0)

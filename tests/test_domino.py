@@ -63,7 +63,7 @@ def kasteleyn_product(m, n):
 @pytest.mark.parametrize("m, n", [(m, n) for m in range(1, 13) for n in range(1, 13) if m * n % 2 == 0]
                          + [(2, 301), (31, 40), (64, 64), (3, 1000), (120, 7)])
 def test_rectangle_resultant_equals_the_real_product(m, n):
-    # the resultant form (frostline.domino.rectangle_count) against the product it rewrites
+    # the resultant form (frostline.domino.rectangle_resultant) against the product it rewrites
     from frostline.domino.counts import rectangle_count
 
     assert rectangle_count(m, n) == rectangle_count(n, m) == kasteleyn_product(m, n)

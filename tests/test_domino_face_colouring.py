@@ -28,8 +28,11 @@ def test_face_parity_is_the_face_of_the_two_periodic_weights(n):
 
 
 def test_the_gas_phase_has_few_odd_face_dominoes():
-    # exact placement probabilities (no sampling noise), order 80, weights (1, 0.3): the odd-face share is
-    # 0.044 in the middle (gas) and 0.14-0.21 in the liquid band around it (values measured here, exact)
+    # A gas phase in the middle of the two-periodic Aztec diamond, surrounded by liquid (Chhita, Johansson,
+    # Adv. Math. 294, 2016): the face colouring must tell the two apart. On exact placement probabilities (no
+    # sampling noise), order 80, weights (1, 0.3), the odd-face share is 0.044 in the middle and 0.14-0.21 in
+    # the liquid band; the thresholds are those measured values with margin (a regression check of ours,
+    # not published numbers).
     n = 80
     region = fl.domino.aztec_diamond(n, two_periodic_weights=(1.0, 0.3))
     tiles, p = fl.exact.placement_probabilities(region)

@@ -2,9 +2,11 @@
 
 Each case runs in a fresh subprocess that resets its high-water mark of
 resident memory (writing 5 to /proc/self/clear_refs, Linux) after the tiles
-are made, then writes a PNG through ``fl.plot.save``. The cases cover both
-paths (one polygon per tile, and one raster image for large tilings) with
-peaks of 100 MB and more.
+are made, then writes a picture through ``fl.plot.save`` and compares the
+peak with the largest estimate the code itself passed to ``check_memory``
+(recorded by a spy). The cases cover both paths (one polygon per tile, and
+one raster image for large tilings), pixel-bound and tile-bound sizes, and
+the vector formats, with peaks of 100 MB and more.
 """
 from __future__ import annotations
 
@@ -22,10 +24,10 @@ SCRIPT = textwrap.dedent("""
     import json, sys
     import numpy as np
     import frostline as fl
-    from frostline.domino.drawing import draw_dominoes, raster_bytes as domino_raster
-    from frostline.lozenge.drawing import RASTER_PIXELS, draw_lozenges, raster_bytes as lozenge_raster
+    import frostline.domino.drawing as domino_drawing
+    import frostline.lozenge.drawing as lozenge_drawing
+    import frostline.plot as plot
     from frostline.lozenge.tiles import tiles_of_plane_partition
-    from frostline.toolkit.drawing import RASTER_TILES, picture_bytes
 
     def high_water():
         for line in open("/proc/self/status"):
@@ -38,33 +40,36 @@ SCRIPT = textwrap.dedent("""
         def plot(self, ax=None, **style):
             return self.draw(*self.args, ax=ax, **style)
 
+    checked = []  # every estimate the drawing code checks, as it checks it
+    def spy(estimate, what):
+        checked.append(estimate)
+    for module in (domino_drawing, lozenge_drawing, plot):
+        module.check_memory = spy
+
     fl.plot.save(fl.lozenge.hexagon(2, 2, 2).sample(seed=0), sys.argv[4] + ".warm.png", size=1, dpi=50)
-    lattice, n, size = sys.argv[1], int(sys.argv[2]), float(sys.argv[3])
+    lattice, n, size, path = sys.argv[1], int(sys.argv[2]), float(sys.argv[3]), sys.argv[4]
     if lattice == "domino":  # an n x n square of horizontal dominoes in two classes
         r, c = np.mgrid[0:n, 0:n:2]
         tiles = np.stack([np.stack([r, c], -1), np.stack([r, c + 1], -1)], -2).reshape(-1, 2, 2)
-        picture = Picture(draw_dominoes, tiles, r.ravel() % 2)
-        cells, work = n * n, domino_raster(n, n, len(tiles))
+        picture = Picture(domino_drawing.draw_dominoes, tiles, r.ravel() % 2)
     else:  # a staircase plane partition in the n x n x n box
         tiles = tiles_of_plane_partition(np.triu(np.full((n, n), n // 2)), n)
-        picture = Picture(draw_lozenges, tiles)
-        cells, work = RASTER_PIXELS ** 2, lozenge_raster(RASTER_PIXELS, RASTER_PIXELS, len(tiles))
-    pixels = int(size * 200) ** 2
-    if len(tiles) > RASTER_TILES:
-        estimate = picture_bytes(pixels, raster_cells=cells, raster_work=work)
-    else:
-        estimate = picture_bytes(pixels, tiles=len(tiles))
+        picture = Picture(lozenge_drawing.draw_lozenges, tiles)
+    checked.clear()
     open("/proc/self/clear_refs", "w").write("5")
     before = high_water()
-    fl.plot.save(picture, sys.argv[4], size=size, dpi=200)
-    print(json.dumps({"peak": high_water() - before, "estimate": estimate, "tiles": len(tiles)}))
+    fl.plot.save(picture, path, size=size, dpi=200)
+    print(json.dumps({"peak": high_water() - before, "estimate": max(checked), "checks": len(checked)}))
 """)
 
-CASES = {  # lattice, side, inches at 200 dpi
-    "domino raster": ("domino", 2000, 6),
-    "domino polygons": ("domino", 300, 20),
-    "lozenge raster": ("lozenge", 400, 6),
-    "lozenge polygons": ("lozenge", 200, 20),
+CASES = {  # lattice, side, inches at 200 dpi, format
+    "domino raster": ("domino", 2000, 6, "png"),
+    "domino polygons, large canvas": ("domino", 300, 20, "png"),
+    "domino polygons near the raster size": ("domino", 540, 6, "png"),
+    "domino polygons as svg": ("domino", 540, 6, "svg"),
+    "lozenge raster": ("lozenge", 400, 6, "png"),
+    "lozenge polygons, large canvas": ("lozenge", 200, 20, "png"),
+    "lozenge polygons as pdf": ("lozenge", 200, 6, "pdf"),
 }
 
 
@@ -72,11 +77,11 @@ CASES = {  # lattice, side, inches at 200 dpi
 @pytest.mark.parametrize("name", sorted(CASES))
 def test_picture_estimate_bounds_the_measured_peak(name, tmp_path):
     pytest.importorskip("matplotlib")
-    lattice, n, size = CASES[name]
-    out = subprocess.run([sys.executable, "-c", SCRIPT, lattice, str(n), str(size), str(tmp_path / "p.png")],
+    lattice, n, size, ext = CASES[name]
+    out = subprocess.run([sys.executable, "-c", SCRIPT, lattice, str(n), str(size), str(tmp_path / f"p.{ext}")],
                          capture_output=True, text=True, check=True).stdout
     figures = json.loads(out.strip().splitlines()[-1])
-    assert figures["peak"] > 100e6  # big enough to measure
+    assert figures["peak"] > 100e6 and figures["checks"] >= 2  # big enough to measure; save() and the plugin
     assert figures["peak"] <= figures["estimate"] <= 1.5 * figures["peak"], figures
 
 

@@ -22,16 +22,17 @@ def aztec_count(n: int) -> int:
 
 def rectangle_count(m: int, n: int, *, budget: Optional[float] = None, max_digits: Optional[int] = None) -> int:
     """Domino tilings of an m x n rectangle, exactly, from the Kasteleyn / Temperley-Fisher product (1961)
-    written as a resultant of two integer polynomials (:mod:`frostline.domino.rectangle_count`).
+    written as a resultant of two integer polynomials (:mod:`frostline.domino.rectangle_resultant`).
 
     Refuses (ValueError, with the estimate) more than ``max_digits`` digits or
     an estimated time above ``budget`` seconds (None: no cap).
     """
     from frostline.exact.budget import check_budget_argument, check_digits, check_seconds
 
-    from .rectangle_count import rectangle_count as exact_count
-    from .rectangle_count import resultant_seconds
+    from .rectangle_resultant import rectangle_count as exact_count
+    from .rectangle_resultant import resultant_seconds
 
+    m, n = integer(m, "the rows m", 0, 2**31), integer(n, "the columns n", 0, 2**31)
     budget = check_budget_argument(budget)
     if m * n % 2:
         return 0

@@ -12,6 +12,7 @@ from frostline.toolkit.drawing import (
     add_key,
     frame,
     hex_to_rgb,
+    is_vector_output,
     output_pixels,
     picture_bytes,
     show_raster,
@@ -54,7 +55,8 @@ def draw_dominoes(tiles: np.ndarray, classes: np.ndarray, ax: Any = None, *, ton
                      f"a picture of {len(tiles)} dominoes")
         image, extent = raster_dominoes(tiles, classes, tones=tones)
         return show_raster(ax, image, extent, title)
-    check_memory(picture_bytes(output_pixels(ax), tiles=len(tiles)), f"a picture of {len(tiles)} dominoes")
+    check_memory(picture_bytes(output_pixels(ax), tiles=len(tiles), vector=is_vector_output(ax)),
+                 f"a picture of {len(tiles)} dominoes")
     rects = domino_rectangles(tiles)
     colours = list(np.array(tones, dtype=object)[np.asarray(classes, dtype=int)]) if len(rects) else []
     large = len(rects) > 1500
@@ -68,7 +70,7 @@ def draw_dominoes(tiles: np.ndarray, classes: np.ndarray, ax: Any = None, *, ton
 def raster_bytes(rows: int, cols: int, dominoes: int) -> int:
     """Peak memory (bytes) of :func:`raster_dominoes`: the float32 RGBA image and the per-domino index arrays.
 
-    Fitted to measured peaks of resident memory (tests/test_memory_estimates.py).
+    Fitted to measured peaks of resident memory (tests/test_picture_memory.py).
     """
     return 16 * rows * cols + 32 * dominoes + 10**6
 

@@ -103,11 +103,14 @@ def from_picture(picture: str, **weights: Any) -> DominoRegion:
                               any(w is not None for w in weights.values())),
                  f"the {len(lines)}x{width} picture")
     mask = np.zeros((len(lines), width), bool)
+    filled_codes, empty_codes = (np.array([ord(ch) for ch in symbols], np.uint32) for symbols in (FILLED, EMPTY))
     for r, line in enumerate(lines):
-        bad = set(line) - set(FILLED) - set(EMPTY)
-        if bad:
-            c = min(line.index(ch) for ch in bad)
+        codes = np.frombuffer(line.encode("utf-32-le"), dtype="<u4")   # one code point per character
+        filled = np.isin(codes, filled_codes)
+        bad = ~filled & ~np.isin(codes, empty_codes)
+        if bad.any():
+            c = int(np.argmax(bad))
             raise ValueError(f"unexpected symbol {line[c]!r} in row {r}, column {c} of the picture; "
                              f"use '#' for a cell and '.' for none")
-        mask[r, :len(line)] = [ch in FILLED for ch in line]
+        mask[r, :len(line)] = filled
     return DominoRegion(mask, weights.get("horizontal"), weights.get("vertical"), description={"shape": "picture"})

@@ -12,6 +12,7 @@ from frostline.toolkit.drawing import (
     add_key,
     frame,
     hex_to_rgb,
+    is_vector_output,
     output_pixels,
     picture_bytes,
     show_raster,
@@ -53,7 +54,8 @@ def draw_lozenges(tiles: np.ndarray, ax: Any = None, *, tones: Sequence[str] = F
                      f"a picture of {len(tiles)} lozenges")
         image, extent = raster_lozenges(tiles, RASTER_PIXELS, tones=tones)
         return show_raster(ax, image, extent, title)
-    check_memory(picture_bytes(output_pixels(ax), tiles=len(tiles)), f"a picture of {len(tiles)} lozenges")
+    check_memory(picture_bytes(output_pixels(ax), tiles=len(tiles), vector=is_vector_output(ax)),
+                 f"a picture of {len(tiles)} lozenges")
     polygons = lozenge_polygons(tiles)
     colours = list(np.array(tones, dtype=object)[tiles[:, 2]]) if len(tiles) else []
     large = len(tiles) > 1000
@@ -73,7 +75,7 @@ def raster_bytes(width: int, height: int, lozenges: int) -> int:
     """Peak memory (bytes) of :func:`raster_lozenges`: the float32 image, one block of rows of float
     work arrays, and the sorted triangle keys.
 
-    Fitted to measured peaks of resident memory (tests/test_memory_estimates.py).
+    Fitted to measured peaks of resident memory (tests/test_picture_memory.py).
     """
     return 16 * width * height + ROW_BLOCK * 100 * width + 150 * lozenges + 10**6
 

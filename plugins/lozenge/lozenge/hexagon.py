@@ -109,12 +109,13 @@ class HexagonRegion(LozengeTiles, VariationalRegion, Region):
     def kasteleyn_real(self) -> np.ndarray:
         return self._general().kasteleyn_real()
 
-    def exact_mean_heights(self, tolerance: float = 1e-6) -> np.ndarray:
-        """The exact expected plane partition (float (a, b), the layout of ``heights``; uniform or q ** volume),
-        from the law of a count of cube tops along a line (:mod:`frostline.lozenge.box_mean_heights`)."""
+    def exact_mean_heights(self, tolerance: float = 1e-6, budget: Optional[float] = 60.0) -> np.ndarray:
+        """The expected plane partition (float (a, b), the layout of ``heights``; uniform or q ** volume), from
+        the law of a count of cube tops along a line (:mod:`frostline.lozenge.box_mean_heights`): checked
+        floating point, refused above ``budget`` seconds by its estimate (None: no cap)."""
         from .box_mean_heights import box_mean_heights
 
-        return box_mean_heights(self, tolerance)
+        return box_mean_heights(self, tolerance, budget)
 
     def height_field(self, heights: np.ndarray) -> np.ndarray:
         """The number-of-cubes height on the lattice points of the hexagon (the layout of

@@ -66,8 +66,8 @@ def kasteleyn_inverse(region: Any, tolerance: float = 1e-6) -> Tuple[dict, np.nd
         raise ValueError(
             f"floating point cannot give these probabilities: around some vertex they sum to 1 only within {worst:.2g} "
             f"(tolerance {tolerance:g}); the {n}x{n} Kasteleyn matrix is too badly conditioned. Use a smaller region "
-            "(domino regions of about 5000 cells; Aztec diamonds themselves have an exact recursion at any order) or "
-            "estimate densities from exact samples")
+            "(or, for q ** volume weights, q nearer 1) or estimate from exact samples; Aztec diamonds have an exact "
+            "recursion at any order")
     return system, inverse, p
 
 

@@ -13,7 +13,7 @@ import numpy as np
 
 from .._limits import check_memory
 from ..toolkit import palette
-from ..toolkit.drawing import picture_bytes
+from ..toolkit.drawing import VECTOR_FORMATS, picture_bytes
 
 FORMATS = (".png", ".svg", ".pdf")
 
@@ -53,11 +53,12 @@ def save(sample: Any, path: str | os.PathLike[str], *, size: float = 6.0, dpi: i
     (for .png); returns the path written. The memory of the picture is
     estimated before anything is drawn (``FROSTLINE_MEMORY_LIMIT``).
     """
-    _check_format(path)
+    ext = _check_format(path)
     pixels = _check_size(size, dpi)
-    check_memory(picture_bytes(pixels), f"a {size:g}-inch picture at {dpi} dpi")
+    check_memory(picture_bytes(pixels, vector=ext in VECTOR_FORMATS), f"a {size:g}-inch picture at {dpi} dpi")
     plt = _pyplot()
     fig, ax = plt.subplots(figsize=(size, size), dpi=dpi)  # the file's dpi, so plugins estimate its pixels
+    fig.frostline_format = ext  # and its format (vector formats keep every polygon)
     try:
         sample.plot(ax=ax, **style)
         if title:

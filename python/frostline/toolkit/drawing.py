@@ -32,20 +32,33 @@ def output_pixels(ax: Any) -> int:
     return int(width * fig.dpi) * int(height * fig.dpi)
 
 
-def picture_bytes(pixels: int, tiles: int = 0, raster_cells: int = 0, raster_work: int = 0) -> int:
+#: vector formats: matplotlib writes every polygon out as text or PDF operators, no pixel canvas
+VECTOR_FORMATS = (".svg", ".pdf")
+
+
+def is_vector_output(ax: Any) -> bool:
+    """Whether the figure holding ``ax`` is to be written as .svg or .pdf (set by :func:`frostline.plot.save`)."""
+    return getattr(ax.figure, "frostline_format", ".png") in VECTOR_FORMATS
+
+
+def picture_bytes(pixels: int, tiles: int = 0, raster_cells: int = 0, raster_work: int = 0,
+                  vector: bool = False) -> int:
     """Peak memory (bytes) of drawing and writing a picture of ``pixels`` output pixels.
 
-    Polygons (``raster_cells`` 0): matplotlib's canvas and the PNG encoder,
-    about 10 bytes a pixel, and about 400 bytes a tile for the polygons. A
-    raster image of ``raster_cells`` float32 RGBA cells: the larger of its own
-    construction (``raster_work``) and the image (16 bytes a cell) while
-    matplotlib resamples it (about 20 bytes a cell and 32 an output pixel).
-    Constants fitted to measured peaks of resident memory (matplotlib 3.11;
-    tests/test_memory_estimates.py holds them to within 1.5 times).
+    Polygons (``raster_cells`` 0): for .png, matplotlib's canvas and the PNG
+    encoder (about 10 bytes a pixel) and about 700 bytes a tile; for .svg and
+    .pdf (``vector``) no canvas, about 1150 bytes a tile. A raster image of
+    ``raster_cells`` float32 RGBA cells: the larger of its own construction
+    (``raster_work``) and the image (16 bytes a cell) while matplotlib
+    resamples it (about 20 bytes a cell and 32 an output pixel). Constants
+    fitted to measured peaks of resident memory (matplotlib 3.11;
+    tests/test_picture_memory.py holds them to within 1.5 times).
     """
     if raster_cells:
         return max(raster_work, 36 * raster_cells + 32 * pixels) + 10**7
-    return 10 * pixels + 400 * tiles + 10**7
+    if vector:
+        return 1150 * tiles + 10**7
+    return 10 * pixels + 700 * tiles + 10**7
 
 
 def hex_to_rgb(colour: str) -> tuple:

@@ -18,22 +18,26 @@ G_n(t) = F_n(t) t^(n mod 2) adds the root 0 of k = (n+1)/2 for odd n. Then
 since G_m is monic. From U_{n+2} = (4z^2 - 2) U_n - U_{n-2}: F_{n+2} = (t - 2) F_n - F_{n-2}
 (F_0 = 1, F_2 = t - 1; F_1 = 1, F_3 = t - 2), so G_n(-t) is reduced modulo
 G_m by powers of a 2x2 matrix, in O(log n) products of polynomials of degree
-below ceil(m/2): thin rectangles cost almost nothing. The resultant is
-python-flint's exact integer one.
+below ceil(m/2). The resultant is python-flint's exact integer one; its cost
+grows with the size of the count (about the square of its digits for thin
+strips), which :func:`resultant_seconds` estimates.
 """
 from __future__ import annotations
 
 from typing import Any, Optional
 
 # Measured on a 2-core AMD EPYC (Zen 4) with python-flint 0.9 (benchmarks/rectangle_counts.py):
-# 400x400 0.35 s, 1000x1000 9.1 s, 2000x2000 122 s, 100x2000 0.14 s, 20x20000 0.26 s.
+# 400x400 0.31-0.35 s, 1000x1000 8.3-9.1 s, 2000x2000 122 s, 100x2000 0.14 s, 20x20000 0.26 s;
+# thin strips grow like the square of m n: 4x1e6 9.2 s, 4x1.96e6 36 s, 10x2e5 2.8 s (a review's runs).
 _SECONDS = 7e-11
+_SQUARE_SECONDS = 1e-12
 
 
 def resultant_seconds(m: int, n: int) -> float:
-    """Estimated seconds of :func:`rectangle_count` (m <= n after swapping); a fit to the measurements above."""
+    """Estimated seconds of :func:`rectangle_count`: the larger of a fit for squares and near-squares
+    (m <= n after swapping) and one quadratic in m n for thin strips (the measurements above)."""
     m, n = sorted((m, n))
-    return _SECONDS * float(m) ** 2.26 * float(n) ** 1.49 + 1e-3
+    return max(_SECONDS * float(m) ** 2.26 * float(n) ** 1.49, _SQUARE_SECONDS * (float(m) * n) ** 2) + 1e-3
 
 
 def _half_chebyshev(n: int, modulus: Optional[Any], negate: bool) -> Any:
