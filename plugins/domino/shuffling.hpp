@@ -433,9 +433,14 @@ inline std::vector<std::int32_t> aztec_shuffle(std::int64_t n, const double* hor
     const bool weighted = horizontal != nullptr || vertical != nullptr;
     check_aztec_memory(n, weighted, segment_length, limit_bytes);
 
-    // the engine's one poller; every 2^22 face updates is a few milliseconds
-    run_control polling = control != nullptr ? *control : run_control{};
+    // the engine's one poller; every 2^22 face updates is a few milliseconds. The caller's hook is
+    // reached through a pointer, never copied: it may hold Python objects, whose reference counts must
+    // not change here, where the GIL is released (copying it raced on the count of None and crashed
+    // ensembles of shuffled samples on several threads).
+    run_control polling;
     polling.poll_interval = std::int64_t(1) << 22;
+    if (control != nullptr && control->keep_going)
+        polling.keep_going = [control](const run_progress& p) { return control->keep_going(p); };
     const frostline::detail::stopwatch clock;
     frostline::detail::poller poll(polling, clock);
     face_grids faces(n, std::move(team));
