@@ -8,7 +8,7 @@ import numpy as np
 import pytest
 
 import frostline as fl
-from frostline.analysis import compare_with_exact, frozen_positions, height_fluctuations
+from frostline.analysis import compare_with_exact, frozen_positions, height_fluctuations, local_densities
 
 REGION = fl.domino.aztec_diamond(8)
 
@@ -37,6 +37,7 @@ def _fluctuation_figures(f):
 MEASUREMENTS = {
     "compare_with_exact": lambda s: compare_with_exact(s).z,
     "height_fluctuations": lambda s: _fluctuation_figures(height_fluctuations(s, bootstrap=20)),
+    "local_densities": lambda s: np.array(list(local_densities(s, centre=(0.0, 0.0), radius=3.0).values())),
     "frozen_positions": lambda s: frozen_positions(s, start=(0.5, 8.0), direction=(0.0, -1.0)).positions,
 }
 

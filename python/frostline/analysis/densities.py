@@ -43,11 +43,12 @@ def local_densities(samples: Samples, centre: Tuple[float, float], radius: float
     """Fraction of tiles of each class among those centred within ``radius`` of ``centre`` (plane coordinates).
 
     Returns ``{class name: (mean over samples, standard error of that mean)}``.
+    The samples are read one at a time (an ensemble's store is streamed).
     """
-    samples = _as_list(samples)
-    names = samples[0].region.tile_classes
+    names: Tuple[str, ...] = ()
     per_sample = []
-    for s in samples:
+    for s in each_sample(samples):
+        names = names or tuple(s.region.tile_classes)
         centres, classes = _centres_and_classes(s)
         near = np.hypot(centres[:, 0] - centre[0], centres[:, 1] - centre[1]) <= radius
         if not near.any():
