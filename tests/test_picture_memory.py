@@ -43,7 +43,8 @@ SCRIPT = textwrap.dedent("""
     checked = []  # every estimate the drawing code checks, as it checks it
     def spy(estimate, what):
         checked.append(estimate)
-    for module in (domino_drawing, lozenge_drawing, plot):
+    import frostline._limits as limits
+    for module in (domino_drawing, lozenge_drawing, plot, limits):  # by-name imports, and the module itself
         module.check_memory = spy
 
     fl.plot.save(fl.lozenge.hexagon(2, 2, 2).sample(seed=0), sys.argv[4] + ".warm.png", size=1, dpi=50)

@@ -7,16 +7,7 @@ import numpy as np
 
 from frostline._limits import check_memory
 from frostline.toolkit import palette
-from frostline.toolkit.drawing import (
-    RASTER_TILES,
-    add_key,
-    frame,
-    hex_to_rgb,
-    is_vector_output,
-    output_pixels,
-    picture_bytes,
-    show_raster,
-)
+from frostline.toolkit.drawing import RASTER_TILES, add_key, check_picture_memory, frame, hex_to_rgb, show_raster
 
 CLASS_TONES = palette.DOMINO_CLASSES  # north, south, east, west: warm horizontal, cool vertical
 
@@ -50,13 +41,11 @@ def draw_dominoes(tiles: np.ndarray, classes: np.ndarray, ax: Any = None, *, ton
     tiles = np.asarray(tiles).reshape(-1, 2, 2)
     if len(tiles) > RASTER_TILES:
         rows, cols = (np.ptp(tiles[:, :, k]) + 1 for k in (0, 1))
-        check_memory(picture_bytes(output_pixels(ax), raster_cells=int(rows) * int(cols),
-                                   raster_work=raster_bytes(int(rows), int(cols), len(tiles))),
-                     f"a picture of {len(tiles)} dominoes")
+        check_picture_memory(ax, f"a picture of {len(tiles)} dominoes", raster_cells=int(rows) * int(cols),
+                             raster_work=raster_bytes(int(rows), int(cols), len(tiles)))
         image, extent = raster_dominoes(tiles, classes, tones=tones)
         return show_raster(ax, image, extent, title)
-    check_memory(picture_bytes(output_pixels(ax), tiles=len(tiles), vector=is_vector_output(ax)),
-                 f"a picture of {len(tiles)} dominoes")
+    check_picture_memory(ax, f"a picture of {len(tiles)} dominoes", tiles=len(tiles))
     rects = domino_rectangles(tiles)
     colours = list(np.array(tones, dtype=object)[np.asarray(classes, dtype=int)]) if len(rects) else []
     large = len(rects) > 1500

@@ -7,23 +7,14 @@ import numpy as np
 
 from frostline._limits import check_memory
 from frostline.toolkit import palette
-from frostline.toolkit.drawing import (
-    RASTER_TILES,
-    add_key,
-    frame,
-    hex_to_rgb,
-    is_vector_output,
-    output_pixels,
-    picture_bytes,
-    show_raster,
-)
+from frostline.toolkit.drawing import RASTER_TILES, add_key, check_picture_memory, frame, hex_to_rgb, show_raster
 
 from .tiles import DOWN_PARTNER, LOZENGE_CORNERS, SQRT3_2, lozenge_polygons, plane_points
 
 FACE_TONES = palette.LOZENGE_FACES  # cube tops pale, the two visible sides in two darker tones
-#: what each lozenge type is in the stack-of-cubes picture (tiles.tiles_of_plane_partition)
 RASTER_PIXELS = 2400  # longer side of the image that stands for a large tiling
 ROW_BLOCK = 256  # image rows computed at a time: bounds the float work arrays
+#: what each lozenge type is in the stack-of-cubes picture (tiles.tiles_of_plane_partition)
 TYPE_NAMES = ("type 0: cube tops", "type 1: faces along +X", "type 2: faces along -Y")
 
 
@@ -49,13 +40,11 @@ def draw_lozenges(tiles: np.ndarray, ax: Any = None, *, tones: Sequence[str] = F
         add_key(ax, [(name, tone, None) for name, tone in zip(TYPE_NAMES, tones)])
     if len(tiles) > RASTER_TILES:
         # the image's longer side is RASTER_PIXELS: its square bounds the cells
-        check_memory(picture_bytes(output_pixels(ax), raster_cells=RASTER_PIXELS ** 2,
-                                   raster_work=raster_bytes(RASTER_PIXELS, RASTER_PIXELS, len(tiles))),
-                     f"a picture of {len(tiles)} lozenges")
+        check_picture_memory(ax, f"a picture of {len(tiles)} lozenges", raster_cells=RASTER_PIXELS ** 2,
+                             raster_work=raster_bytes(RASTER_PIXELS, RASTER_PIXELS, len(tiles)))
         image, extent = raster_lozenges(tiles, RASTER_PIXELS, tones=tones)
         return show_raster(ax, image, extent, title)
-    check_memory(picture_bytes(output_pixels(ax), tiles=len(tiles), vector=is_vector_output(ax)),
-                 f"a picture of {len(tiles)} lozenges")
+    check_picture_memory(ax, f"a picture of {len(tiles)} lozenges", tiles=len(tiles))
     polygons = lozenge_polygons(tiles)
     colours = list(np.array(tones, dtype=object)[tiles[:, 2]]) if len(tiles) else []
     large = len(tiles) > 1000

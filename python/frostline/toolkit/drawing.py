@@ -61,6 +61,15 @@ def picture_bytes(pixels: int, tiles: int = 0, raster_cells: int = 0, raster_wor
     return 10 * pixels + 700 * tiles + 10**7
 
 
+def check_picture_memory(ax: Any, what: str, tiles: int = 0, raster_cells: int = 0, raster_work: int = 0) -> None:
+    """Refuse (RegionTooLargeError) a picture on ``ax`` whose :func:`picture_bytes` exceed the memory limit;
+    the pixels and the format come from the figure (see :func:`output_pixels`, :func:`is_vector_output`)."""
+    from .._limits import check_memory
+
+    check_memory(picture_bytes(output_pixels(ax), tiles=tiles, raster_cells=raster_cells, raster_work=raster_work,
+                               vector=is_vector_output(ax)), what)
+
+
 def hex_to_rgb(colour: str) -> tuple:
     """'#rrggbb' -> (r, g, b) floats in [0, 1]."""
     c = colour.lstrip("#")
