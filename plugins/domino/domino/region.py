@@ -302,18 +302,21 @@ class DominoRegion(VariationalRegion, Region):
         heights = self._scan_columns(self.geometry.expected_step_down(crossed), float)
         return np.where(self.corner_mask, heights, np.nan)
 
-    def placement_probabilities(self, tolerance: float = 1e-6) -> Tuple[np.ndarray, np.ndarray]:
+    def placement_probabilities(self, tolerance: float = 1e-6,
+                                budget: Optional[float] = DEFAULT_BUDGET_SECONDS) -> Tuple[np.ndarray, np.ndarray]:
         """Every domino position and its probability (``fl.exact.placement_probabilities`` calls this).
 
         Aztec diamonds of any order: the urban-renewal recursion in probabilities
-        (:mod:`.edge_probabilities`; float64 loses about n * 1e-16); other regions:
-        the inverse Kasteleyn matrix. Either way the probabilities around every
-        cell must sum to 1 within ``tolerance``, or ValueError is raised.
+        (:mod:`.edge_probabilities`; float64 loses about n * 1e-16; the
+        probabilities around every cell must sum to 1 within ``tolerance``);
+        other regions: the inverse Kasteleyn matrix, each probability certified
+        within ``tolerance`` (``budget`` seconds caps that route). ValueError
+        otherwise.
         """
         from frostline.exact.local_statistics import check_vertex_sums, kasteleyn_placement_probabilities
 
         if not self.is_aztec_diamond:
-            return kasteleyn_placement_probabilities(self, tolerance)
+            return kasteleyn_placement_probabilities(self, tolerance, budget)
         n = int(self._description["order"])
         horizontal, vertical = self.weights if self.weights is not None else (None, None)
         tiles, p = aztec_placement_probabilities(n, horizontal, vertical,

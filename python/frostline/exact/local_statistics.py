@@ -8,66 +8,111 @@ for lozenges, weights 1 on horizontal and i on vertical dominoes (times the
 edge weights).
 
 Floating-point inverses of these matrices are badly conditioned
-(docs/references.md section 3): the inverse is refined by one Newton step and the
-probabilities around every vertex must sum to 1 within ``tolerance``;
-otherwise ValueError is raised rather than wrong numbers returned.
+(docs/references.md section 3), so every probability carries a rigorous error
+bound (:mod:`.certified_inverse`): float64 with an exactly computed residual
+where that suffices, ball arithmetic otherwise; each returned probability is
+within ``tolerance`` of the exact one for the matrix as stored, or ValueError
+is raised rather than wrong numbers returned.
 """
 from __future__ import annotations
 
-from typing import Any, Dict, Tuple
+import math
+from typing import Any, Dict, Optional, Tuple
 
 import numpy as np
 
 from .._limits import check_memory
 from ..progress import report
+from .budget import DEFAULT_BUDGET_SECONDS, check_budget_argument
 from .certified import CertifiedLog, certified_log_abs_det
+from .certified_inverse import ball_probabilities, float_entries
+
+_U = 2.0**-53
+_MIN_TOLERANCE = 1e-15   # above the float64 rounding of a probability near 1 and of its certified radius
 
 
-def placement_probabilities(region: Any, tolerance: float = 1e-6) -> Tuple[np.ndarray, np.ndarray]:
+def placement_probabilities(region: Any, tolerance: float = 1e-6,
+                            budget: Optional[float] = DEFAULT_BUDGET_SECONDS) -> Tuple[np.ndarray, np.ndarray]:
     """Every possible tile position of ``region`` (in the layout of ``Sample.tiles``) and its probability.
 
-    A region whose plugin knows a better route offers ``placement_probabilities(tolerance)``
-    (the Aztec diamond: a recursion in probabilities, any order); otherwise the
-    inverse Kasteleyn matrix. Raises ValueError for regions whose plugin has no
-    Kasteleyn matrix (or whose weights are not edge weights), or when floating
-    point cannot reach ``tolerance``.
+    A region whose plugin knows a better route offers
+    ``placement_probabilities(tolerance, budget)`` (the Aztec diamond: a
+    recursion in probabilities, any order); otherwise the inverse Kasteleyn
+    matrix, each probability certified within ``tolerance`` (absolute; see the
+    module docstring). Raises ValueError for regions whose plugin has no
+    Kasteleyn matrix (or whose weights are not edge weights), when no route
+    reaches ``tolerance``, or when the certified route is estimated above
+    ``budget`` seconds (None: no cap; Ctrl-C stops it).
     """
+    budget = check_budget_argument(budget)
+    check_tolerance(tolerance)
     special = getattr(region, "placement_probabilities", None)
     if callable(special):
-        return special(tolerance)
-    return kasteleyn_placement_probabilities(region, tolerance)
+        return special(tolerance, budget=budget)
+    return kasteleyn_placement_probabilities(region, tolerance, budget)
 
 
-def kasteleyn_placement_probabilities(region: Any, tolerance: float = 1e-6) -> Tuple[np.ndarray, np.ndarray]:
-    """:func:`placement_probabilities` from the inverse Kasteleyn matrix, refined and checked (Kenyon 1997)."""
-    system, _, p = kasteleyn_inverse(region, tolerance)
+def kasteleyn_placement_probabilities(region: Any, tolerance: float = 1e-6,
+                                      budget: Optional[float] = DEFAULT_BUDGET_SECONDS
+                                      ) -> Tuple[np.ndarray, np.ndarray]:
+    """:func:`placement_probabilities` from the inverse Kasteleyn matrix, certified (Kenyon 1997)."""
+    system, _, p = kasteleyn_inverse(region, tolerance, budget)
     return system["tiles"], p
 
 
-def kasteleyn_inverse(region: Any, tolerance: float = 1e-6) -> Tuple[dict, np.ndarray, np.ndarray]:
-    """(dimer system, inverse Kasteleyn matrix, placement probabilities), the inverse refined by one Newton
-    step and checked: the probabilities of the tiles at every vertex sum to 1 within ``tolerance``."""
+def certified_probabilities(system: dict, inverse: np.ndarray, tolerance: float,
+                            budget: Optional[float]) -> Tuple[np.ndarray, str]:
+    """|K(b, w) K^{-1}(w, b)| for every edge, each within ``tolerance`` of the exact value, and the route
+    used: the float64 bound on ``inverse`` if it suffices, else ball arithmetic (:mod:`.certified_inverse`)."""
+    check_tolerance(tolerance)
+    k, rows, cols = system["matrix"], system["rows"], system["cols"]
+    weights = k[rows, cols]
+    got = float_entries(k, inverse, rows, cols)
+    if got is not None:
+        values, error = got
+        p = np.abs(weights * values)
+        bound = np.abs(weights) * error * (1.0 + 4 * _U) + 4 * _U * p
+        if float(bound.max(initial=0.0)) <= tolerance:
+            return p, "float64 with an exact residual"
+    condition = float(np.abs(k).sum(axis=1).max() * np.abs(inverse).sum(axis=1).max())
+    p, _ = ball_probabilities(k, rows, cols, tolerance, budget, condition=condition)
+    return p, "ball arithmetic"
+
+
+def check_tolerance(tolerance: float) -> None:
+    """TypeError/ValueError unless ``tolerance`` is a number that float64 probabilities can meet."""
+    if isinstance(tolerance, bool) or not isinstance(tolerance, (int, float)):
+        raise TypeError(f"tolerance must be a number (an absolute error on each probability), "
+                        f"got {type(tolerance).__name__}")
+    if not (tolerance >= _MIN_TOLERANCE and math.isfinite(tolerance)):
+        raise ValueError(f"floating point cannot give probabilities within tolerance={tolerance!r}: they are "
+                         f"returned as float64 (spacing 1.1e-16 near 1); ask for a tolerance of at least "
+                         f"{_MIN_TOLERANCE:g}. Aztec diamonds have an exact recursion in rationals "
+                         "(frostline.domino.edge_probabilities.aztec_placement_probabilities(n, exact=True))")
+
+
+def kasteleyn_inverse(region: Any, tolerance: float = 1e-6, budget: Optional[float] = DEFAULT_BUDGET_SECONDS
+                      ) -> Tuple[dict, np.ndarray, np.ndarray]:
+    """(dimer system, float inverse Kasteleyn matrix refined by one Newton step, placement probabilities
+    certified within ``tolerance``: see :func:`certified_probabilities`)."""
     system = region.dimer_system()
     k = system["matrix"]
     n = k.shape[0]
-    check_memory(48 * n * n + 10**6, f"the inverse of a {n}x{n} Kasteleyn matrix")
+    check_memory(128 * n * n + 10**6, f"the certified inverse of a {n}x{n} Kasteleyn matrix")
     if k.shape[0] != k.shape[1]:
         raise ValueError("the Kasteleyn matrix must be square (equal numbers of the two colours)")
     stage = f"the {n}x{n} inverse Kasteleyn matrix, steps done"  # LAPACK gives no finer progress
     report(stage, 0, 3)
-    inverse = np.linalg.inv(k)
+    try:
+        inverse = np.linalg.inv(k)
+    except np.linalg.LinAlgError:
+        raise ValueError(f"the {n}x{n} Kasteleyn matrix is singular: the region has no tiling "
+                         "(or its weights cancel)") from None
     report(stage, 1, 3)
     inverse = inverse + inverse @ (np.eye(n) - k @ inverse)  # one Newton step
     report(stage, 2, 3)
-    rows, cols = system["rows"], system["cols"]
-    p = np.abs(k[rows, cols] * inverse[cols, rows])
-    worst = max(_worst_sum(rows, p, n), _worst_sum(cols, p, n))
-    if not np.isfinite(worst) or worst > tolerance:
-        raise ValueError(
-            f"floating point cannot give these probabilities: around some vertex they sum to 1 only within {worst:.2g} "
-            f"(tolerance {tolerance:g}); the {n}x{n} Kasteleyn matrix is too badly conditioned. Use a smaller region "
-            "(or, for q ** volume weights, q nearer 1) or estimate from exact samples; Aztec diamonds have an exact "
-            "recursion at any order")
+    p, _ = certified_probabilities(system, inverse, tolerance, budget)
+    report(stage, 3, 3)
     return system, inverse, p
 
 
